@@ -1,0 +1,28 @@
+namespace Coupling.Results;
+
+/// <summary>
+/// The tested connectivity of one condition x band x measure: one value per channel pair (in
+/// <see cref="Measures.PairIndex"/> order) with its surrogate z-score, uncorrected p, corrected p and decision.
+/// A plain record for graphs, figures and exports; it holds no analysis state.
+/// </summary>
+/// <param name="Condition">Condition name.</param>
+/// <param name="Band">Band name.</param>
+/// <param name="Measure">Measure key (e.g. "wpli").</param>
+/// <param name="Channels">Channel labels.</param>
+/// <param name="Value">Observed value per pair, summarised over the analysis window.</param>
+/// <param name="Z">(observed - surrogate mean) / surrogate standard deviation, per pair.</param>
+/// <param name="P">Uncorrected surrogate p-value (b+1)/(M+1), per pair.</param>
+/// <param name="PCorrected">Benjamini-Hochberg adjusted p-value across the pairs of this table.</param>
+/// <param name="Significant">Whether the corrected p is at or below the plan's level.</param>
+/// <param name="Positions">Channel positions where known (same order as <paramref name="Channels"/>), else null.</param>
+public sealed record PairResult(
+    string Condition,
+    string Band,
+    string Measure,
+    IReadOnlyList<string> Channels,
+    double[] Value,
+    double[] Z,
+    double[] P,
+    double[] PCorrected,
+    bool[] Significant,
+    IReadOnlyList<Formats.ChannelPosition?>? Positions = null);
