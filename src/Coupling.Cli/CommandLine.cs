@@ -1,0 +1,78 @@
+using System.CommandLine;
+using Coupling.Pipeline;
+
+namespace Coupling.Cli;
+
+/// <summary>The command-line front end: parses arguments, calls the library, prints through the given writers.</summary>
+public static class CommandLine
+{
+    /// <summary>Runs the program with <paramref name="args"/>; returns the process exit code (0 on success).</summary>
+    public static int Run(string[] args, TextWriter output, TextWriter error)
+    {
+        var root = Build(output, error);
+        var parsed = root.Parse(args);
+        try
+        {
+            return parsed.Invoke(new InvocationConfiguration { Output = output, Error = error, EnableDefaultExceptionHandler = false });
+        }
+        catch (InputException e)
+        {
+            error.WriteLine($"coupling: {OneLine(e.Message)}");
+            return 2;
+        }
+        catch (IOException e)
+        {
+            error.WriteLine($"coupling: {OneLine(e.Message)}");
+            return 3;
+        }
+        catch (UnauthorizedAccessException e)
+        {
+            error.WriteLine($"coupling: {OneLine(e.Message)}");
+            return 3;
+        }
+    }
+
+    private static string OneLine(string s) => s.ReplaceLineEndings(" ");
+
+    /// <summary>Builds the command tree (exposed so the help text can be pinned by a test).</summary>
+    public static RootCommand Build(TextWriter output, TextWriter error)
+    {
+        var root = new RootCommand(
+            "Coupling: narrowband connectivity between channels of trial-based electrophysiology recordings, " +
+            "tested against trial-shuffle surrogates. For research use only; not a medical device.");
+
+        var threads = new Option<int>("--threads") { Description = "Worker threads (0: all cores). Results do not depend on it.", DefaultValueFactory = _ => 0 };
+
+        var demoOut = new Option<DirectoryInfo>("--output", "-o") { Description = "Folder for the demo's data and results.", DefaultValueFactory = _ => new DirectoryInfo("coupling-demo") };
+        var demoSurrogates = new Option<int?>("--surrogates") { Description = "Surrogate draws per condition and band (default: the demo plan's)." };
+        var demo = new Command("demo", "Simulate the built-in scenario with known ground truth, analyse it end to end and check the result against the truth.")
+        {
+            demoOut, demoSurrogates, threads,
+        };
+        demo.SetAction(r => Commands.Demo(r.GetValue(demoOut)!.FullName, r.GetValue(demoSurrogates), r.GetValue(threads), output, error));
+
+        var planArg = new Argument<FileInfo>("plan") { Description = "The plan file (YAML) naming recording, conditions, bands, measures, surrogates and output." };
+        var run = new Command("run", "Run the analysis a plan file describes.") { planArg, threads };
+        run.SetAction(r => Commands.RunPlan(r.GetValue(planArg)!.FullName, r.GetValue(threads), output, error));
+
+        var simOut = new Option<DirectoryInfo>("--output", "-o") { Description = "Folder to write the recording (EDF+), truth.json and a plan into.", DefaultValueFactory = _ => new DirectoryInfo("coupling-scenario") };
+        var simSeed = new Option<ulong>("--seed") { Description = "Seed of the simulation.", DefaultValueFactory = _ => ScenarioFiles.DefaultSeed };
+        var simTrials = new Option<int?>("--trials") { Description = "Trials per condition (default: the scenario's)." };
+        var simulate = new Command("simulate", "Write the invented scenario with known ground truth as an EDF+ recording with events, truth.json and a ready plan.")
+        {
+            simOut, simSeed, simTrials,
+        };
+        simulate.SetAction(r => Commands.Simulate(r.GetValue(simOut)!.FullName, r.GetValue(simSeed), r.GetValue(simTrials), output));
+
+        var fileArg = new Argument<FileInfo>("file") { Description = "A recording: EDF/EDF+ (.edf), CSV (.csv) or NPY (.npy)." };
+        var rate = new Option<double?>("--rate") { Description = "Sampling rate in Hz, for CSV files (which do not carry one)." };
+        var inspect = new Command("inspect", "Print a recording's channels, sampling rates, duration and event counts per label.") { fileArg, rate };
+        inspect.SetAction(r => Commands.Inspect(r.GetValue(fileArg)!.FullName, r.GetValue(rate), output));
+
+        root.Subcommands.Add(demo);
+        root.Subcommands.Add(run);
+        root.Subcommands.Add(simulate);
+        root.Subcommands.Add(inspect);
+        return root;
+    }
+}

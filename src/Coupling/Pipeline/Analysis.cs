@@ -1,0 +1,17 @@
+using Coupling.Results;
+using Coupling.Spectral;
+
+namespace Coupling.Pipeline;
+
+/// <summary>The computed, not yet written, results of a run.</summary>
+/// <param name="Results">One tested table per condition x band x measure.</param>
+/// <param name="Conditions">Trial counts and dropped trials per condition.</param>
+/// <param name="Decompositions">What each band's decomposition actually used.</param>
+/// <param name="TimeSteps">Time step (samples) used per band, in band order.</param>
+/// <param name="PadSamples">Padding samples at each end of every trial.</param>
+public sealed record Analysis(
+    IReadOnlyList<PairResult> Results,
+    IReadOnlyList<ConditionSummary> Conditions,
+    IReadOnlyList<DecompositionInfo> Decompositions,
+    IReadOnlyList<int> TimeSteps,
+    int PadSamples);

@@ -1,0 +1,87 @@
+using System.Diagnostics;
+using Coupling.Measures;
+using Coupling.Plans;
+using Coupling.Results;
+using Coupling.Spectral;
+using Coupling.Statistics;
+using Coupling.Trials;
+
+namespace Coupling.Pipeline;
+
+/// <summary>Runs a plan from recording to tested connectivity tables and writes the results folder.</summary>
+public static class AnalysisRunner
+{
+    /// <summary>
+    /// Reads the input, cuts and decomposes the trials, computes every measure for every pair, tests it against
+    /// trial-shuffle surrogates, corrects across pairs and writes the results folder (atomically: a failed run
+    /// leaves no partial folder and keeps an older one).
+    /// </summary>
+    /// <param name="plan">The checked plan.</param>
+    /// <param name="progress">Receives progress; may be null.</param>
+    /// <param name="threads">Worker threads, overriding the plan's when above 0.</param>
+    /// <param name="commandLine">The command line that started the run, for the manifest.</param>
+    public static RunOutcome Run(Plan plan, IProgress<RunProgress>? progress = null, int threads = 0, string? commandLine = null)
+    {
+        var started = DateTimeOffset.UtcNow;
+        var clock = Stopwatch.StartNew();
+        int workers = threads > 0 ? threads : plan.Threads;
+
+        progress?.Report(new RunProgress("reading input", 0, 0));
+        var input = InputLoader.Load(plan);
+        var analysis = Analyse(plan, input, progress, workers);
+
+        progress?.Report(new RunProgress("writing results", 0, 0));
+        var written = ResultsWriter.Write(plan, input, analysis, new RunContext(started, clock.Elapsed, commandLine, workers), progress);
+        return new RunOutcome(written, analysis.Results, analysis.Conditions, clock.Elapsed);
+    }
+
+    /// <summary>Everything computed by a run, before it is written.</summary>
+    public static Analysis Analyse(Plan plan, LoadedInput input, IProgress<RunProgress>? progress, int workers)
+    {
+        var decompositions = plan.Bands
+            .Select(b => BandDecompositions.Create(plan.Decomposition.Method, b, input.SampleRate,
+                new DecompositionOptions(plan.Decomposition.TransitionHz, plan.Decomposition.AttenuationDb, plan.Decomposition.Cycles)))
+            .ToArray();
+        var steps = decompositions.Select(d => plan.Decomposition.TimeStep ?? TimeStep.Default(d.Info, input.SampleRate)).ToArray();
+        int pad = decompositions.Max(d => d.PadSamples);
+
+        // Cut every condition first, so that input problems (unknown labels, too few trials) surface before any long step.
+        var trialSets = new List<TrialSet>();
+        foreach (var condition in plan.Conditions)
+        {
+            foreach (var label in condition.EventLabels)
+                if (!input.EventLabels.Contains(label))
+                    throw new InputException($"{plan.Source}: conditions.{condition.Name}: event label '{label}' does not occur in {input.Source}; labels there: {string.Join(", ", input.EventLabels.Distinct().Order(StringComparer.Ordinal))}.");
+            var trials = input.Trials(condition, plan.Trial, pad);
+            SurrogateTest.CheckFeasible(trials.TrialCount, plan.Surrogates, $"condition '{condition.Name}'");
+            trialSets.Add(trials);
+        }
+
+        var results = new List<PairResult>();
+        var summaries = new List<ConditionSummary>();
+        int ci = 0;
+        foreach (var trials in trialSets)
+        {
+            if (plan.SubtractEvoked) EvokedRemoval.SubtractInPlace(trials);
+            summaries.Add(new ConditionSummary(trials.Condition, trials.TrialCount, trials.DroppedTrials));
+            for (int bi = 0; bi < decompositions.Length; bi++)
+            {
+                string stage = $"{trials.Condition} / {plan.Bands[bi].Name}";
+                progress?.Report(new RunProgress($"{stage}: band isolation", 0, 0));
+                var narrowband = NarrowbandExtractor.Extract(trials, decompositions[bi], plan.Window, steps[bi], workers);
+                var stageProgress = progress is null ? null
+                    : new Progress<int>(done => progress.Report(new RunProgress($"{stage}: surrogates", done, plan.Surrogates)));
+                var tested = SurrogateTest.Run(narrowband, plan.Measures, plan.Surrogates, Seeds.For(plan.Seed, ci, bi), workers, stageProgress);
+                foreach (var m in tested)
+                {
+                    var corrected = FalseDiscoveryRate.BenjaminiHochberg(m.P);
+                    var significant = corrected.Select(q => q <= plan.Q).ToArray();
+                    results.Add(new PairResult(trials.Condition, plan.Bands[bi].Name, MeasureCatalog.Key(m.Measure), trials.Channels,
+                        m.Observed, m.Z, m.P, corrected, significant, input.Channels.Select(c => c.Position).ToArray()));
+                }
+            }
+            ci++;
+        }
+        return new Analysis(results, summaries, decompositions.Select(d => d.Info).ToArray(), steps, pad);
+    }
+}

@@ -1,0 +1,71 @@
+using Coupling.Formats;
+using Coupling.Plans;
+using Coupling.Trials;
+
+namespace Coupling.Pipeline;
+
+/// <summary>
+/// The analysed input of a run: a continuous recording with its events, or epochs that were already cut.
+/// Either way it yields the padded trials of a condition.
+/// </summary>
+public sealed class LoadedInput
+{
+    private readonly Recording? _recording;
+    private readonly double[]? _epochs;
+    private readonly int _epochCount, _epochSamples;
+    private readonly double _firstSampleTime;
+    private readonly IReadOnlyList<string>? _epochLabels;
+
+    private LoadedInput(string source, double sampleRate, IReadOnlyList<ChannelInfo> channels, IReadOnlyList<string> eventLabels,
+        IReadOnlyList<string> notes, Recording? recording, double[]? epochs, int epochCount, int epochSamples,
+        double firstSampleTime, IReadOnlyList<string>? epochLabels)
+    {
+        Source = source;
+        SampleRate = sampleRate;
+        Channels = channels;
+        EventLabels = eventLabels;
+        Notes = notes;
+        _recording = recording;
+        _epochs = epochs;
+        _epochCount = epochCount;
+        _epochSamples = epochSamples;
+        _firstSampleTime = firstSampleTime;
+        _epochLabels = epochLabels;
+    }
+
+    /// <summary>A continuous recording with its events.</summary>
+    public static LoadedInput FromRecording(Recording recording) =>
+        new(recording.Source, recording.SampleRate, recording.Channels, recording.Events.Select(e => e.Label).ToArray(),
+            recording.Notes, recording, null, 0, 0, 0, null);
+
+    /// <summary>Epochs in C order (epoch, channel, sample) with one event label per epoch.</summary>
+    public static LoadedInput FromEpochs(string source, double sampleRate, IReadOnlyList<ChannelInfo> channels, double[] data,
+        int epochCount, int epochSamples, double firstSampleTime, IReadOnlyList<string> epochLabels) =>
+        new(source, sampleRate, channels, epochLabels, Array.Empty<string>(), null, data, epochCount, epochSamples,
+            firstSampleTime, epochLabels);
+
+    /// <summary>Where the data came from.</summary>
+    public string Source { get; }
+
+    /// <summary>Sampling rate in Hz.</summary>
+    public double SampleRate { get; }
+
+    /// <summary>The analysed channels.</summary>
+    public IReadOnlyList<ChannelInfo> Channels { get; }
+
+    /// <summary>Label of every event (or epoch), with repeats.</summary>
+    public IReadOnlyList<string> EventLabels { get; }
+
+    /// <summary>Messages from reading (e.g. signals left out).</summary>
+    public IReadOnlyList<string> Notes { get; }
+
+    /// <summary>The continuous recording, or null for epochs input.</summary>
+    public Recording? Recording => _recording;
+
+    /// <summary>The padded trials of <paramref name="condition"/>.</summary>
+    public TrialSet Trials(ConditionSpec condition, TimeRange span, int padSamples) =>
+        _recording is not null
+            ? TrialCutter.Cut(_recording, condition, span, padSamples)
+            : EpochTrials.Select(Source, _epochs!, _epochCount, Channels.Select(c => c.Label).ToArray(), _epochSamples,
+                SampleRate, _firstSampleTime, _epochLabels!, condition, span, padSamples);
+}

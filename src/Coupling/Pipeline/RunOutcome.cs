@@ -1,0 +1,10 @@
+using Coupling.Results;
+
+namespace Coupling.Pipeline;
+
+/// <summary>What a finished run produced.</summary>
+/// <param name="OutputFolder">The results folder.</param>
+/// <param name="Results">The tested tables.</param>
+/// <param name="Conditions">Trial counts per condition.</param>
+/// <param name="Elapsed">Wall-clock time of the run.</param>
+public sealed record RunOutcome(string OutputFolder, IReadOnlyList<PairResult> Results, IReadOnlyList<ConditionSummary> Conditions, TimeSpan Elapsed);

@@ -1,0 +1,68 @@
+using Coupling.Measures;
+using Coupling.Spectral;
+
+namespace Coupling.Plans;
+
+/// <summary>
+/// A checked analysis plan: what to read, how to cut and decompose it, what to compute and test, and where to write.
+/// Paths are absolute (resolved against the plan file's folder). Built by <see cref="PlanReader"/>.
+/// </summary>
+public sealed record Plan
+{
+    /// <summary>The plan file this was read from (absolute), or a description for generated plans.</summary>
+    public required string Source { get; init; }
+
+    /// <summary>Recording file: EDF/EDF+ (.edf), CSV (.csv, a column per channel) or NPY epochs (.npy).</summary>
+    public required string Recording { get; init; }
+
+    /// <summary>BIDS-style events.tsv to use instead of the recording's own annotations; null to use those (or a sidecar found beside the recording).</summary>
+    public string? Events { get; init; }
+
+    /// <summary>Channels to analyse, in order; null for every channel at the recording's main sampling rate.</summary>
+    public IReadOnlyList<string>? Channels { get; init; }
+
+    /// <summary>Sampling rate in Hz, required for CSV and NPY input, ignored for EDF.</summary>
+    public double? SampleRate { get; init; }
+
+    /// <summary>Settings for input that is already cut into epochs; null for continuous recordings.</summary>
+    public EpochsSpec? Epochs { get; init; }
+
+    /// <summary>The conditions to compare.</summary>
+    public required IReadOnlyList<ConditionSpec> Conditions { get; init; }
+
+    /// <summary>The trial span around each onset.</summary>
+    public required TimeRange Trial { get; init; }
+
+    /// <summary>The analysis window (inside the trial span) over which measures are summarised.</summary>
+    public required TimeRange Window { get; init; }
+
+    /// <summary>Whether each condition's trial average is subtracted from its trials before decomposition.</summary>
+    public bool SubtractEvoked { get; init; }
+
+    /// <summary>Frequency bands.</summary>
+    public required IReadOnlyList<Band> Bands { get; init; }
+
+    /// <summary>Band isolation settings.</summary>
+    public required DecompositionSpec Decomposition { get; init; }
+
+    /// <summary>Measures to compute.</summary>
+    public required IReadOnlyList<Measure> Measures { get; init; }
+
+    /// <summary>Number of trial-shuffle surrogate draws per condition x band.</summary>
+    public int Surrogates { get; init; } = 1000;
+
+    /// <summary>Seed of every random choice in the run.</summary>
+    public ulong Seed { get; init; }
+
+    /// <summary>False discovery rate level for the Benjamini-Hochberg correction.</summary>
+    public double Q { get; init; } = 0.05;
+
+    /// <summary>Results folder (created whole when the run succeeds).</summary>
+    public required string Output { get; init; }
+
+    /// <summary>Whether PNG figures are drawn.</summary>
+    public bool Figures { get; init; } = true;
+
+    /// <summary>Worker threads for surrogate draws; 0 for all cores.</summary>
+    public int Threads { get; init; }
+}

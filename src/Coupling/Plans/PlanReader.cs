@@ -1,0 +1,308 @@
+using System.Globalization;
+using Coupling.Measures;
+using Coupling.Spectral;
+using YamlDotNet.Core;
+using YamlDotNet.RepresentationModel;
+
+namespace Coupling.Plans;
+
+/// <summary>
+/// Reads and checks a YAML plan file. Every key is checked: an unknown key, a missing required key or a value of the
+/// wrong kind raises an <see cref="InputException"/> naming the file, the line, the key and what is allowed.
+/// </summary>
+/// <remarks>The plan keys are listed in docs/user-guide.md.</remarks>
+public static class PlanReader
+{
+    /// <summary>Top-level keys a plan may hold.</summary>
+    public static readonly IReadOnlyList<string> TopLevelKeys =
+    [
+        "recording", "events", "channels", "sample_rate", "epochs", "conditions", "trial", "window", "evoked",
+        "bands", "decomposition", "measures", "surrogates", "seed", "correction", "output", "figures", "threads",
+    ];
+
+    /// <summary>Reads the plan at <paramref name="path"/>; relative paths inside it are taken from the plan's folder.</summary>
+    public static Plan Read(string path)
+    {
+        if (!File.Exists(path)) throw new InputException($"{path}: plan file not found.");
+        using var reader = new StreamReader(path);
+        return Parse(reader, Path.GetFullPath(path));
+    }
+
+    /// <summary>Parses plan text; <paramref name="source"/> names it in errors and anchors relative paths.</summary>
+    public static Plan Parse(TextReader text, string source)
+    {
+        var stream = new YamlStream();
+        try { stream.Load(text); }
+        catch (YamlException e)
+        {
+            throw new InputException($"{source}, line {e.Start.Line}: not valid YAML ({e.Message}).", e);
+        }
+        if (stream.Documents.Count == 0 || stream.Documents[0].RootNode is not YamlMappingNode root)
+            throw new InputException($"{source}: the plan must be a YAML mapping of keys to values (e.g. 'recording: data.edf').");
+        var ctx = new Context(source, Path.GetDirectoryName(source) ?? ".");
+        var map = ctx.Keys(root, "the plan", TopLevelKeys);
+
+        string recording = ctx.Path(ctx.Required(map, root, "recording", "the plan"), "recording");
+        string ext = System.IO.Path.GetExtension(recording).ToLowerInvariant();
+        if (ext is not (".edf" or ".csv" or ".npy"))
+            throw ctx.Error(map["recording"], "recording", $"'{recording}' has extension '{ext}'; expected .edf (EDF/EDF+), .csv or .npy");
+
+        double? sampleRate = map.TryGetValue("sample_rate", out var sr) ? ctx.Positive(sr, "sample_rate") : null;
+        if (ext is ".csv" or ".npy" && sampleRate is null)
+            throw ctx.Error(root, "sample_rate", $"a {ext} recording carries no sampling rate; give 'sample_rate' in Hz");
+
+        EpochsSpec? epochs = null;
+        if (map.TryGetValue("epochs", out var ep)) epochs = ReadEpochs(ctx, ep);
+        if (ext == ".npy" && epochs is null)
+            throw ctx.Error(root, "epochs", "an .npy recording holds epochs (trials x channels x samples); give 'epochs' with first_sample_time, labels and channel_labels");
+        if (ext != ".npy" && epochs is not null)
+            throw ctx.Error(ep!, "epochs", "'epochs' applies only to .npy recordings");
+
+        var conditions = ReadConditions(ctx, ctx.Required(map, root, "conditions", "the plan"));
+        var trial = ReadRange(ctx, ctx.Required(map, root, "trial", "the plan"), "trial");
+        var window = ReadRange(ctx, ctx.Required(map, root, "window", "the plan"), "window");
+        if (window.Start < trial.Start || window.End > trial.End)
+            throw ctx.Error(map["window"], "window",
+                $"the window {Fmt(window.Start)}..{Fmt(window.End)} s must lie inside the trial span {Fmt(trial.Start)}..{Fmt(trial.End)} s");
+
+        bool subtract = false;
+        if (map.TryGetValue("evoked", out var ev))
+        {
+            string v = ctx.Scalar(ev, "evoked");
+            subtract = v switch
+            {
+                "keep" => false,
+                "subtract" => true,
+                _ => throw ctx.Error(ev, "evoked", $"'{v}' is not allowed; use 'keep' or 'subtract'"),
+            };
+        }
+
+        var bands = ReadBands(ctx, ctx.Required(map, root, "bands", "the plan"));
+        var decomposition = map.TryGetValue("decomposition", out var dn)
+            ? ReadDecomposition(ctx, dn)
+            : new DecompositionSpec("fir-hilbert", null, null, null, null);
+        var measures = ReadMeasures(ctx, ctx.Required(map, root, "measures", "the plan"));
+
+        int surrogates = map.TryGetValue("surrogates", out var su) ? ctx.Int(su, "surrogates", 1, 1_000_000) : 1000;
+        ulong seed = 0;
+        if (map.TryGetValue("seed", out var se))
+        {
+            string s = ctx.Scalar(se, "seed");
+            if (!ulong.TryParse(s, NumberStyles.None, CultureInfo.InvariantCulture, out seed))
+                throw ctx.Error(se, "seed", $"'{s}' is not a non-negative whole number");
+        }
+        else throw ctx.Error(root, "seed", "give a 'seed' (a non-negative whole number) so the surrogates can be reproduced");
+
+        double q = 0.05;
+        if (map.TryGetValue("correction", out var co)) q = ReadCorrection(ctx, co);
+
+        string output = ctx.Path(ctx.Required(map, root, "output", "the plan"), "output");
+        bool figures = !map.TryGetValue("figures", out var fi) || ctx.Bool(fi, "figures");
+        int threads = map.TryGetValue("threads", out var th) ? ctx.Int(th, "threads", 0, 4096) : 0;
+
+        return new Plan
+        {
+            Source = source,
+            Recording = recording,
+            Events = map.TryGetValue("events", out var evf) ? ctx.Path(evf, "events") : null,
+            Channels = map.TryGetValue("channels", out var ch) ? ctx.StringList(ch, "channels", unique: true) : null,
+            SampleRate = sampleRate,
+            Epochs = epochs,
+            Conditions = conditions,
+            Trial = trial,
+            Window = window,
+            SubtractEvoked = subtract,
+            Bands = bands,
+            Decomposition = decomposition,
+            Measures = measures,
+            Surrogates = surrogates,
+            Seed = seed,
+            Q = q,
+            Output = output,
+            Figures = figures,
+            Threads = threads,
+        };
+    }
+
+    private static EpochsSpec ReadEpochs(Context ctx, YamlNode node)
+    {
+        var m = ctx.Keys(node, "epochs", ["first_sample_time", "labels", "channel_labels"]);
+        double first = ctx.Number(ctx.Required(m, node, "first_sample_time", "epochs"), "epochs.first_sample_time");
+        string labels = ctx.Path(ctx.Required(m, node, "labels", "epochs"), "epochs.labels");
+        var channels = ctx.StringList(ctx.Required(m, node, "channel_labels", "epochs"), "epochs.channel_labels", unique: true);
+        return new EpochsSpec(first, labels, channels);
+    }
+
+    private static IReadOnlyList<ConditionSpec> ReadConditions(Context ctx, YamlNode node)
+    {
+        if (node is not YamlMappingNode map || map.Children.Count == 0)
+            throw ctx.Error(node, "conditions", "expected a mapping of condition names to event labels, e.g. 'cue: [cue-left, cue-right]'");
+        var list = new List<ConditionSpec>();
+        var seenLabels = new Dictionary<string, string>(StringComparer.Ordinal);
+        foreach (var (k, v) in map.Children)
+        {
+            string name = ctx.Scalar(k, "conditions");
+            CheckName(ctx, k, "conditions", name);
+            var labels = v is YamlScalarNode ? [ctx.Scalar(v, $"conditions.{name}")] : ctx.StringList(v, $"conditions.{name}", unique: true);
+            foreach (var l in labels)
+                if (!seenLabels.TryAdd(l, name))
+                    throw ctx.Error(v, $"conditions.{name}", $"event label '{l}' already belongs to condition '{seenLabels[l]}'; a trial can belong to one condition only");
+            list.Add(new ConditionSpec(name, labels));
+        }
+        return list;
+    }
+
+    private static TimeRange ReadRange(Context ctx, YamlNode node, string key)
+    {
+        var m = ctx.Keys(node, key, ["start", "end"]);
+        double start = ctx.Number(ctx.Required(m, node, "start", key), $"{key}.start");
+        double end = ctx.Number(ctx.Required(m, node, "end", key), $"{key}.end");
+        if (!(end > start)) throw ctx.Error(node, key, $"end ({Fmt(end)} s) must be after start ({Fmt(start)} s)");
+        return new TimeRange(start, end);
+    }
+
+    private static IReadOnlyList<Band> ReadBands(Context ctx, YamlNode node)
+    {
+        if (node is not YamlMappingNode map || map.Children.Count == 0)
+            throw ctx.Error(node, "bands", "expected a mapping of band names to [low, high] in Hz, e.g. 'theta: [4, 8]'");
+        var bands = new List<Band>();
+        foreach (var (k, v) in map.Children)
+        {
+            string name = ctx.Scalar(k, "bands");
+            CheckName(ctx, k, "bands", name);
+            if (v is not YamlSequenceNode seq || seq.Children.Count != 2)
+                throw ctx.Error(v, $"bands.{name}", "expected [low, high] in Hz");
+            double lo = ctx.Number(seq.Children[0], $"bands.{name}"), hi = ctx.Number(seq.Children[1], $"bands.{name}");
+            if (!(lo > 0) || !(hi > lo))
+                throw ctx.Error(v, $"bands.{name}", $"expected 0 < low < high, got [{Fmt(lo)}, {Fmt(hi)}]");
+            bands.Add(new Band(name, lo, hi));
+        }
+        return bands;
+    }
+
+    private static DecompositionSpec ReadDecomposition(Context ctx, YamlNode node)
+    {
+        var m = ctx.Keys(node, "decomposition", ["method", "transition", "attenuation", "cycles", "time_step"]);
+        string method = m.TryGetValue("method", out var mn) ? ctx.Scalar(mn, "decomposition.method") : "fir-hilbert";
+        if (method is not ("fir-hilbert" or "morlet"))
+            throw ctx.Error(mn!, "decomposition.method", $"'{method}' is not allowed; use 'fir-hilbert' or 'morlet'");
+        double? transition = m.TryGetValue("transition", out var tr) ? ctx.Positive(tr, "decomposition.transition") : null;
+        double? attenuation = m.TryGetValue("attenuation", out var at) ? ctx.Positive(at, "decomposition.attenuation") : null;
+        double? cycles = m.TryGetValue("cycles", out var cy) ? ctx.Positive(cy, "decomposition.cycles") : null;
+        if (method == "fir-hilbert" && cycles is not null)
+            throw ctx.Error(cy!, "decomposition.cycles", "'cycles' applies to method 'morlet' only");
+        if (method == "morlet" && (transition is not null || attenuation is not null))
+            throw ctx.Error(node, "decomposition", "'transition' and 'attenuation' apply to method 'fir-hilbert' only");
+        int? step = null;
+        if (m.TryGetValue("time_step", out var ts) && ctx.Scalar(ts, "decomposition.time_step") != "auto")
+            step = ctx.Int(ts, "decomposition.time_step", 1, 100_000);
+        return new DecompositionSpec(method, transition, attenuation, cycles, step);
+    }
+
+    private static IReadOnlyList<Measure> ReadMeasures(Context ctx, YamlNode node)
+    {
+        if (node is YamlScalarNode s && s.Value == "all") return Enum.GetValues<Measure>();
+        var keys = ctx.StringList(node, "measures", unique: true);
+        var list = new List<Measure>();
+        foreach (var k in keys)
+        {
+            if (!MeasureCatalog.TryParse(k, out var measure))
+                throw ctx.Error(node, "measures", $"'{k}' is not a known measure; allowed: all, {string.Join(", ", Enum.GetValues<Measure>().Select(MeasureCatalog.Key))}");
+            list.Add(measure);
+        }
+        return list;
+    }
+
+    private static double ReadCorrection(Context ctx, YamlNode node)
+    {
+        var m = ctx.Keys(node, "correction", ["method", "q"]);
+        if (m.TryGetValue("method", out var mn) && ctx.Scalar(mn, "correction.method") != "fdr-bh")
+            throw ctx.Error(mn, "correction.method", $"'{ctx.Scalar(mn, "correction.method")}' is not allowed; use 'fdr-bh' (Benjamini-Hochberg false discovery rate)");
+        if (!m.TryGetValue("q", out var qn)) return 0.05;
+        double q = ctx.Number(qn, "correction.q");
+        if (!(q > 0 && q < 1)) throw ctx.Error(qn, "correction.q", $"expected a level between 0 and 1, got {Fmt(q)}");
+        return q;
+    }
+
+    private static void CheckName(Context ctx, YamlNode node, string key, string name)
+    {
+        if (name.Length == 0 || name.Any(c => !(char.IsAsciiLetterOrDigit(c) || c is '-' or '.')))
+            throw ctx.Error(node, key, $"name '{name}' may hold only letters, digits, '-' and '.' (it becomes part of file names)");
+    }
+
+    private static string Fmt(double v) => v.ToString("G6", CultureInfo.InvariantCulture);
+
+    private sealed class Context(string source, string folder)
+    {
+        public InputException Error(YamlNode node, string key, string what) =>
+            new($"{source}, line {node.Start.Line}: {key}: {what}.");
+
+        public Dictionary<string, YamlNode> Keys(YamlNode node, string where, IReadOnlyList<string> allowed)
+        {
+            if (node is not YamlMappingNode map)
+                throw Error(node, where, $"expected a mapping with keys {string.Join(", ", allowed)}");
+            var result = new Dictionary<string, YamlNode>(StringComparer.Ordinal);
+            foreach (var (k, v) in map.Children)
+            {
+                string key = Scalar(k, where);
+                if (!allowed.Contains(key))
+                    throw Error(k, where == "the plan" ? key : $"{where}.{key}", $"unknown key; allowed here: {string.Join(", ", allowed)}");
+                if (!result.TryAdd(key, v)) throw Error(k, key, "given twice");
+            }
+            return result;
+        }
+
+        public YamlNode Required(Dictionary<string, YamlNode> map, YamlNode parent, string key, string where) =>
+            map.TryGetValue(key, out var v) ? v : throw Error(parent, where == "the plan" ? key : $"{where}.{key}", "required key is missing");
+
+        public string Scalar(YamlNode node, string key) =>
+            node is YamlScalarNode { Value: { } v } ? v.Trim() : throw Error(node, key, "expected a single value");
+
+        public double Number(YamlNode node, string key)
+        {
+            string s = Scalar(node, key);
+            return double.TryParse(s, NumberStyles.Float, CultureInfo.InvariantCulture, out double v) && double.IsFinite(v)
+                ? v : throw Error(node, key, $"'{s}' is not a number");
+        }
+
+        public double Positive(YamlNode node, string key)
+        {
+            double v = Number(node, key);
+            return v > 0 ? v : throw Error(node, key, $"expected a positive number, got {Fmt(v)}");
+        }
+
+        public int Int(YamlNode node, string key, int min, int max)
+        {
+            string s = Scalar(node, key);
+            return int.TryParse(s, NumberStyles.AllowLeadingSign, CultureInfo.InvariantCulture, out int v) && v >= min && v <= max
+                ? v : throw Error(node, key, $"'{s}' is not a whole number from {min} to {max}");
+        }
+
+        public bool Bool(YamlNode node, string key) => Scalar(node, key) switch
+        {
+            "true" or "yes" => true,
+            "false" or "no" => false,
+            var s => throw Error(node, key, $"'{s}' is not allowed; use true or false"),
+        };
+
+        public IReadOnlyList<string> StringList(YamlNode node, string key, bool unique)
+        {
+            if (node is not YamlSequenceNode seq || seq.Children.Count == 0)
+                throw Error(node, key, "expected a non-empty list, e.g. [a, b]");
+            var list = seq.Children.Select(c => Scalar(c, key)).ToList();
+            if (unique)
+            {
+                var dup = list.GroupBy(x => x, StringComparer.Ordinal).FirstOrDefault(g => g.Count() > 1);
+                if (dup is not null) throw Error(node, key, $"'{dup.Key}' is listed twice");
+            }
+            return list;
+        }
+
+        public string Path(YamlNode node, string key)
+        {
+            string s = Scalar(node, key);
+            if (s.Length == 0) throw Error(node, key, "expected a file or folder path");
+            return System.IO.Path.GetFullPath(System.IO.Path.Combine(folder, s));
+        }
+    }
+}
