@@ -61,7 +61,7 @@ public static class FirDesign
     /// and the scaling to unit gain at the centre shifts the pass band by the centre's own ripple; with the plain
     /// formulas the deviation can reach about 2.8 delta (checked over bands from 0.5 to 90 Hz). The design therefore
     /// starts from Kaiser's N and beta for A and, while the measured deviation or stop gain (see
-    /// <see cref="FirFilter"/>) exceeds 0.99 delta, raises the design attenuation by 1 dB and designs again (at most
+    /// <see cref="FirFilter"/>) exceeds 0.99 delta, raises the design attenuation by 0.5 dB and designs again (at most
     /// <see cref="MaximumMarginDb"/> dB). The 1 % margin covers the grid: a ripple peak missed by at most 1/64 of a
     /// lobe is at most 1 - cos(2 pi / 64) = 0.5 % higher than the grid shows. The attenuation used is recorded as
     /// <see cref="FirFilter.DesignAttenuationDb"/>.
@@ -83,7 +83,7 @@ public static class FirDesign
             throw new InputException($"{where}: attenuation {attenuationDb} dB must be at least {KaiserDesign.MinimumAttenuationDb} dB.");
         double a = Math.Abs(attenuationDb);
         double delta = Math.Pow(10, -a / 20);
-        for (double margin = 0; margin <= MaximumMarginDb; margin += 1.0)
+        for (double margin = 0; margin <= MaximumMarginDb; margin += 0.5)
         {
             var (taps, beta) = KaiserDesign.Order(a + margin, transitionHz, sampleRate);
             var filter = new FirFilter(WindowedSincTaps(band, sampleRate, taps, beta), sampleRate, band, transitionHz,

@@ -14,8 +14,10 @@ namespace Coupling.Spectral;
 /// length L, transformed back, and samples c .. c + n - 1 (c = (N - 1) / 2) are kept. This is exactly the two-step
 /// route applied to the zero-extended segment: <see cref="ZeroPhase.Apply(FirFilter, ReadOnlySpan{double}, Span{double})"/>
 /// on [c zeros, x, zeros up to L], then the analytic signal of that whole length-L result. It differs from taking the
-/// analytic signal of the n filtered samples alone only through the filtered signal's spill beyond the segment ends,
-/// that is within the padding. Marple, S. L. (1999), IEEE Trans. Signal Processing 47(9), 2600-2603; for the
+/// analytic signal of the n filtered samples alone (a circular transform of the truncated filter output) only through
+/// the filtered signal's spill beyond the segment ends: large within the padding, and beyond it a remainder that
+/// falls off like the discrete Hilbert kernel, 2 / (pi d) (about 2e-3 of the rms for white noise in a 4-8 Hz band at
+/// 250 Hz). The zero extension is the same convention as <see cref="ZeroPhase"/>, and nothing wraps around. Marple, S. L. (1999), IEEE Trans. Signal Processing 47(9), 2600-2603; for the
 /// equivalence of filter-Hilbert and wavelet routes, Bruns, A. (2004), J. Neurosci. Methods 137, 321-332.
 /// The spectrum of the combined kernel is computed once per transform length and kept (thread-safe).
 /// </remarks>
