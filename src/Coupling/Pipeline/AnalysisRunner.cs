@@ -40,7 +40,7 @@ public static class AnalysisRunner
     {
         var decompositions = plan.Bands
             .Select(b => BandDecompositions.Create(plan.Decomposition.Method, b, input.SampleRate,
-                new DecompositionOptions(plan.Decomposition.TransitionHz, plan.Decomposition.AttenuationDb, plan.Decomposition.Cycles)))
+                new BandDecompositionOptions(plan.Decomposition.TransitionHz, plan.Decomposition.AttenuationDb, plan.Decomposition.Cycles)))
             .ToArray();
         var steps = decompositions.Select(d => plan.Decomposition.TimeStep ?? TimeStep.Default(d.Info, input.SampleRate)).ToArray();
         int pad = decompositions.Max(d => d.PadSamples);
