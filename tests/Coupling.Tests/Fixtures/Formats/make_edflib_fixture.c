@@ -38,7 +38,7 @@ static double intended(int sig, int n)
     double t = n / rate;
     switch (sig) {
     case 0: return 3000.0 * sin(2.0 * M_PI * 7.0 * t);
-    case 1: return 480.0 * cos(2.0 * M_PI * 3.0 * t) - 0.25 * n;
+    case 1: return 380.0 * cos(2.0 * M_PI * 3.0 * t) - 0.1 * n;
     default: return 0.9 * sin(2.0 * M_PI * 0.5 * t);
     }
 }
