@@ -87,7 +87,7 @@ public static class EdfReader
     private static ChannelInfo ToChannel(EdfSignalHeader s) => new(s.Label, TypeFromLabel(s.Label), s.PhysicalDimension);
 
     /// <summary>EDF+ labels start with a signal type ("EEG Fpz-Cz"); the known EDF+ types are taken as the channel type.</summary>
-    private static string TypeFromLabel(string label)
+    internal static string TypeFromLabel(string label)
     {
         string first = label.Split(' ', 2)[0];
         string[] known = ["EEG", "ECG", "EOG", "ERG", "EMG", "MEG", "MCG", "EP", "Temp", "Resp", "SaO2", "Light", "Sound", "Event"];
