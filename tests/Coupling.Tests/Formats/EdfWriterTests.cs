@@ -170,4 +170,60 @@ public class EdfWriterTests
         var e = Assert.Throws<InputException>(() => EdfWriter.Write(rec, tmp.File("x.edf")));
         Assert.Contains("'Cz' sample 7", e.Message);
     }
+
+    /// <summary>The recording behind the committed coupling_written.edf; any change to it or to the writer shows as a byte difference.</summary>
+    private static Recording ForEdflib()
+    {
+        var events = Enumerable.Range(0, 50).Select(i => new RecordingEvent(i * 0.05, i % 2 * 0.25, "ev" + i)).ToArray();
+        var a = Enumerable.Range(0, 2500).Select(i => 40 * Math.Sin(i * 0.1)).ToArray();
+        var b = Enumerable.Range(0, 2500).Select(i => 1e-3 * i).ToArray();
+        return new Recording("probe", 1000, [new ChannelInfo("EEG Fz", "EEG", "uV"), new ChannelInfo("X", "LFP", "mV")], [a, b], events);
+    }
+
+    [Fact]
+    public void EDFlib_reads_the_writer_output_as_written()
+    {
+        // Independent reader: EDFlib 1.23 (Debian libedf1) read coupling_written.edf into coupling_written_edflib.json
+        // (read_with_edflib.c; Fixtures/Formats/README.md). First: the writer still makes exactly that file.
+        var rec = ForEdflib();
+        string? regenerate = Environment.GetEnvironmentVariable("COUPLING_FIXTURE_OUT");
+        if (regenerate is not null)
+        {
+            EdfWriter.Write(rec, Path.Combine(regenerate, "coupling_written.edf"));
+            return;
+        }
+        using var tmp = new TempFolder();
+        string path = tmp.File("w.edf");
+        EdfWriter.Write(rec, path);
+        Assert.Equal(File.ReadAllBytes(Fixtures.Path("coupling_written.edf")), File.ReadAllBytes(path));
+
+        using var doc = System.Text.Json.JsonDocument.Parse(File.ReadAllText(Fixtures.Path("coupling_written_edflib.json")));
+        var root = doc.RootElement;
+        Assert.Equal(1, root.GetProperty("filetype").GetInt32()); // EDFLIB_FILETYPE_EDFPLUS in edflib.h
+        var signals = root.GetProperty("signals").EnumerateArray().ToArray();
+        Assert.Equal(2, signals.Length); // EDFlib hides the annotation signal
+        for (int c = 0; c < 2; c++)
+        {
+            var s = signals[c];
+            Assert.Equal(rec.Channels[c].Label, s.GetProperty("label").GetString()!.Trim());
+            Assert.Equal(rec.Channels[c].Unit, s.GetProperty("unit").GetString()!.Trim());
+            var physical = EdflibFixture.Doubles(s.GetProperty("physical"));
+            Assert.Equal(rec.SampleCount, physical.Length);
+            // One digital step of 16-bit EDF (Kemp et al. 1992) from the header EDFlib read.
+            double step = (s.GetProperty("physical_max").GetDouble() - s.GetProperty("physical_min").GetDouble()) / 65535;
+            for (int i = 0; i < physical.Length; i++)
+                Assert.True(Math.Abs(physical[i] - rec.Samples[c][i]) <= step, $"channel {c} sample {i}");
+        }
+        var annotations = root.GetProperty("annotations").EnumerateArray().ToArray();
+        Assert.Equal(rec.Events.Count, annotations.Length);
+        for (int i = 0; i < annotations.Length; i++)
+        {
+            var e = rec.Events[i];
+            // EDFlib reports onsets in units of 100 ns (EDFLIB_TIME_DIMENSION 10000000) and durations as the TAL text.
+            Assert.Equal((long)Math.Round(e.Onset * 1e7), annotations[i].GetProperty("onset_100ns").GetInt64());
+            string duration = annotations[i].GetProperty("duration").GetString()!;
+            Assert.Equal(e.Duration, duration.Length == 0 ? 0 : double.Parse(duration, System.Globalization.CultureInfo.InvariantCulture));
+            Assert.Equal(e.Label, annotations[i].GetProperty("text").GetString());
+        }
+    }
 }
