@@ -1,0 +1,99 @@
+using Coupling.Formats;
+using Coupling.Plans;
+
+namespace Coupling.Pipeline;
+
+/// <summary>Reads the input a plan names: the recording, its events and its sidecars, with the plan's channel selection.</summary>
+public static class InputLoader
+{
+    /// <summary>
+    /// Reads the plan's recording. Events come from the plan's <c>events</c> file when given, else from a BIDS
+    /// events.tsv beside the recording, else (EDF+) from its annotations. channels.tsv and electrodes.tsv beside the
+    /// recording set types, units and positions; channels marked bad there are left out unless the plan names them.
+    /// Refuses NaN samples (the readers do) and flat channels, naming them.
+    /// </summary>
+    public static LoadedInput Load(Plan plan)
+    {
+        string path = plan.Recording;
+        if (!File.Exists(path)) throw new InputException($"{plan.Source}: recording: file '{path}' not found.");
+        string ext = Path.GetExtension(path).ToLowerInvariant();
+        if (ext == ".npy") return LoadEpochs(plan);
+
+        var sidecars = RecordingSidecars.FindBesides(path);
+        var recording = ext == ".edf" ? EdfReader.Read(path, plan.Channels) : CsvRecording.Read(path, plan.SampleRate!.Value);
+        if (ext == ".csv" && plan.Channels is not null) recording = Select(recording, plan.Channels);
+
+        string? eventsFile = plan.Events ?? sidecars.Events;
+        IReadOnlyList<RecordingEvent>? events = eventsFile is null ? null : EventsTsv.Read(eventsFile);
+        if (events is null && ext == ".csv")
+            throw new InputException($"{plan.Source}: events: a CSV recording carries no events; give an events.tsv (onset, duration, trial_type) in 'events' or beside {path}.");
+        recording = RecordingSidecars.Apply(recording, events,
+            sidecars.Channels is null ? null : ChannelsTsv.Read(sidecars.Channels),
+            sidecars.Electrodes is null ? null : ElectrodesTsv.Read(sidecars.Electrodes),
+            keepBad: plan.Channels is not null);
+
+        var flat = RecordingChecks.FindFlatChannels(recording);
+        if (flat.Count > 0)
+            throw new InputException($"{path}: channel(s) {string.Join(", ", flat)} are flat (every sample equal): phase and envelope are undefined there; leave them out with 'channels' in the plan.");
+        if (recording.Channels.Count < 2)
+            throw new InputException($"{path}: connectivity needs at least 2 channels, the selection has {recording.Channels.Count}.");
+        return LoadedInput.FromRecording(recording);
+    }
+
+    private static Recording Select(Recording recording, IReadOnlyList<string> labels)
+    {
+        var rows = new double[labels.Count][];
+        var channels = new ChannelInfo[labels.Count];
+        for (int i = 0; i < labels.Count; i++)
+        {
+            int c = recording.IndexOf(labels[i]);
+            if (c < 0)
+                throw new InputException($"{recording.Source}: channel '{labels[i]}' not found; channels there: {string.Join(", ", recording.Channels.Select(x => x.Label))}.");
+            rows[i] = recording.Samples[c];
+            channels[i] = recording.Channels[c];
+        }
+        return new Recording(recording.Source, recording.SampleRate, channels, rows, recording.Events, recording.Notes);
+    }
+
+    private static LoadedInput LoadEpochs(Plan plan)
+    {
+        var spec = plan.Epochs!;
+        var array = NpyArray.Read(plan.Recording);
+        if (array.Shape.Count != 3)
+            throw new InputException($"{plan.Recording}: an epochs array must have 3 dimensions (trials x channels x samples), this one has shape ({string.Join(", ", array.Shape)}).");
+        int epochs = array.Shape[0], channels = array.Shape[1], samples = array.Shape[2];
+        if (spec.ChannelLabels.Count != channels)
+            throw new InputException($"{plan.Source}: epochs.channel_labels lists {spec.ChannelLabels.Count} channels, but {plan.Recording} holds {channels}.");
+        if (!File.Exists(spec.LabelsFile)) throw new InputException($"{plan.Source}: epochs.labels: file '{spec.LabelsFile}' not found.");
+        var labels = File.ReadAllLines(spec.LabelsFile).Select(l => l.Trim()).Where(l => l.Length > 0).ToArray();
+        if (labels.Length != epochs)
+            throw new InputException($"{spec.LabelsFile}: {labels.Length} labels, but {plan.Recording} holds {epochs} epochs (one label per line, one line per epoch).");
+
+        double[] data = array.Values;
+        var chosen = Enumerable.Range(0, channels).ToArray();
+        if (plan.Channels is not null)
+        {
+            chosen = plan.Channels.Select(l =>
+            {
+                int i = spec.ChannelLabels.ToList().IndexOf(l);
+                return i >= 0 ? i : throw new InputException($"{plan.Source}: channels: '{l}' is not among epochs.channel_labels ({string.Join(", ", spec.ChannelLabels)}).");
+            }).ToArray();
+            var picked = new double[(long)epochs * chosen.Length * samples];
+            for (int e = 0; e < epochs; e++)
+                for (int c = 0; c < chosen.Length; c++)
+                    data.AsSpan((e * channels + chosen[c]) * samples, samples).CopyTo(picked.AsSpan((e * chosen.Length + c) * samples, samples));
+            data = picked;
+        }
+        var infos = chosen.Select(i => new ChannelInfo(spec.ChannelLabels[i], "unknown", "unknown")).ToArray();
+        for (int c = 0; c < chosen.Length; c++)
+        {
+            double first = data[c * samples];
+            bool flat = true;
+            for (int e = 0; e < epochs && flat; e++)
+                foreach (double v in data.AsSpan((e * chosen.Length + c) * samples, samples))
+                    if (v != first) { flat = false; break; }
+            if (flat) throw new InputException($"{plan.Recording}: channel '{infos[c].Label}' is flat (every sample equal): leave it out with 'channels' in the plan.");
+        }
+        return LoadedInput.FromEpochs(plan.Recording, plan.SampleRate!.Value, infos, data, epochs, samples, spec.FirstSampleTime, labels);
+    }
+}
