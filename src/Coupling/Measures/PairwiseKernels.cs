@@ -230,6 +230,9 @@ public static class PairwiseKernels
         double sr = 0, si = 0, sign = 0, abs = 0, square = 0;
         for (int n = 0; n < xRe.Length; n++)
         {
+            // Two rounded products, no fused multiply-add: for an exact copy y = c·x (c a power of two, or c = 1 in a
+            // duplicated channel) the two products are equal and Im X_n is exactly 0, so sign(Im X_n) = 0 and PLI is 0.
+            // A fused form would leave the rounding error of one product, whose sign is arbitrary.
             double imaginary = xIm[n] * yRe[n] - xRe[n] * yIm[n];
             sr += xRe[n] * yRe[n] + xIm[n] * yIm[n];
             si += imaginary;
