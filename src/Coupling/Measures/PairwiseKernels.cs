@@ -16,14 +16,14 @@ namespace Coupling.Measures;
 /// Hum Brain Mapp 8:194-208.</item>
 /// <item><b>PPC</b>(t) = (|Σ_n u_n|² − N) / (N(N−1)) = (N·PLV² − 1)/(N − 1), the unbiased estimator of PLV² (the mean
 /// of cos of the phase-difference differences over all pairs of trials); NaN when N &lt; 2. Vinck, van Wingerden,
-/// Womelsdorf, Fries, Pennartz (2010), NeuroImage 51:112-122, eq. 14.</item>
+/// Womelsdorf, Fries, Pennartz (2010), NeuroImage 51:112-122.</item>
 /// <item><b>PLI</b>(t) = |(1/N) Σ_n sign(Im X_n)|, sign(0) = 0. Stam, Nolte, Daffertshofer (2007), Hum Brain Mapp
 /// 28:1178-1193.</item>
 /// <item><b>wPLI</b>(t) = |Σ_n Im X_n| / Σ_n |Im X_n|, and 0 when the denominator is 0. Vinck, Oostenveld,
-/// van Wingerden, Battaglia, Pennartz (2011), NeuroImage 55:1548-1565, eq. 8.</item>
+/// van Wingerden, Battaglia, Pennartz (2011), NeuroImage 55:1548-1565.</item>
 /// <item><b>debiased wPLI²</b>(t) = ((Σ_n Im X_n)² − Σ_n (Im X_n)²) / ((Σ_n |Im X_n|)² − Σ_n (Im X_n)²), and 0 when
 /// the denominator is 0 (fewer than two trials with a nonzero imaginary part). Vinck et al. (2011), the debiased
-/// estimator of the squared wPLI (eq. 33 there).</item>
+/// estimator of the squared wPLI.</item>
 /// <item><b>coherence</b>(t) = |Σ_n X_n|² / (Σ_n |z_a,n|² · Σ_n |z_b,n|²), magnitude-squared coherence across trials;
 /// 0 when either power is 0.</item>
 /// <item><b>imag-coherency</b>(t) = Im(Σ_n X_n) / sqrt(Σ_n |z_a,n|² · Σ_n |z_b,n|²), signed; 0 when either power is

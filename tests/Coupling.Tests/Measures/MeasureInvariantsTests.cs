@@ -15,7 +15,7 @@ public class MeasureInvariantsTests
     {
         // Mean resultant length R of N independent uniform unit vectors: 2N·R² is asymptotically chi-square with 2
         // degrees of freedom, so E[R] ≈ sqrt(pi/(4N)), and E[R²] = 1/N exactly (Fisher 1993, Statistical Analysis of
-        // Circular Data, section 4.3 (Rayleigh test); Mardia & Jupp 2000, Directional Statistics, section 6.3).
+        // Circular Data, the Rayleigh test; Mardia & Jupp 2000, Directional Statistics; chapter and section from memory).
         // The window value is the mean of T independent time points, so its standard error is
         // sqrt(Var(R)/T) with Var(R) = 1/N - pi/(4N). The O(N^-3/2) term of E[R] is ~1e-5 here, far below 4 SE.
         const int trials = 200, times = 4000;
@@ -39,7 +39,7 @@ public class MeasureInvariantsTests
     [InlineData(200, 3)]
     public void Ppc_equals_n_plv_squared_minus_one_over_n_minus_one_at_each_time_point(int trials, int seed)
     {
-        // Vinck et al. 2010 (NeuroImage 51:112), eq. relating PPC to the PLV: PPC = (N·PLV² − 1)/(N − 1).
+        // Vinck et al. 2010 (NeuroImage 51:112), the relation of PPC to the PLV: PPC = (N·PLV² − 1)/(N − 1).
         // One time point, so the window value is the per-time-point value; tolerance: a few ulps of values <= 1
         // amplified by N/(N-1).
         var set = TestSignals.Random(4, trials, 1, seed);
@@ -103,10 +103,10 @@ public class MeasureInvariantsTests
     public void Coherence_of_a_linear_system_with_output_noise_is_snr_over_one_plus_snr()
     {
         // y = g·x + e with e independent of x: the population coherence is g²Sxx/(g²Sxx + See) = SNR/(1 + SNR)
-        // (Bendat & Piersol, Random Data, 4th ed. 2010, section 6.1.4, coherence of a linear system with output
-        // noise). The estimate from N trials has normalised random error sqrt(2)(1-γ²)/(|γ| sqrt(N)) (ibid., section
-        // 9.2.3) and a bias of order (1-γ²)²/N (from memory); averaging over T independent time points divides the
-        // random error by sqrt(T). Tolerance: 4 standard errors plus the bias.
+        // (Bendat & Piersol, Random Data, 4th ed. 2010, coherence of a linear system with output noise). The estimate
+        // from N trials has normalised random error sqrt(2)(1-γ²)/(|γ| sqrt(N)) (ibid., chapter on statistical errors
+        // of coherence estimates; formula from memory) and a bias of order (1-γ²)²/N (from memory); averaging over
+        // T independent time points divides the random error by sqrt(T). Tolerance: 4 standard errors plus the bias.
         const int trials = 2000, times = 40;
         const double gain = 1.0, noisePower = 0.5;
         var random = new Random(31);

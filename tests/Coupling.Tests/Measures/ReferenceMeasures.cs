@@ -45,7 +45,7 @@ internal static class ReferenceMeasures
         {
             case Measure.Plv: // Lachaux et al. 1999
                 return (sumU / count).Magnitude;
-            case Measure.Ppc: // Vinck et al. 2010, eq. 14
+            case Measure.Ppc: // Vinck et al. 2010
                 return (Math.Pow(sumU.Magnitude, 2) - count) / (count * (count - 1.0));
             case Measure.Pli: // Stam et al. 2007
                 return Math.Abs(x.Sum(v => (double)Math.Sign(v.Imaginary)) / count);
