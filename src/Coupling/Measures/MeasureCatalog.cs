@@ -15,7 +15,7 @@ namespace Coupling.Measures;
 /// </remarks>
 public static class MeasureCatalog
 {
-    private static readonly Measure[] AllMeasures = Enum.GetValues<Measure>();
+    private static readonly IReadOnlyList<Measure> AllMeasures = Array.AsReadOnly(Enum.GetValues<Measure>());
 
     /// <summary>Every measure, in enum order.</summary>
     public static IReadOnlyList<Measure> All => AllMeasures;

@@ -29,7 +29,7 @@ public sealed class PairwiseWorkspace
         if (set.TimeCount < 1) throw new ArgumentException("At least one time point is needed.", nameof(set));
 
         Set = set;
-        Measures = measures.ToArray();
+        Measures = Array.AsReadOnly(measures.ToArray());
         PairCount = PairIndex.Count(set.ChannelCount);
         Slot = new int[Enum.GetValues<Measure>().Length];
         Array.Fill(Slot, -1);

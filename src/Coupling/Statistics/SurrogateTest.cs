@@ -37,10 +37,13 @@ public static class SurrogateTest
     /// <param name="seed">Seed of the trial orders.</param>
     /// <param name="condition">Name of the condition, used in error messages.</param>
     /// <param name="maxThreads">Upper bound on worker threads; null uses every core.</param>
-    /// <param name="progress">Told the number of draws finished so far, after each chunk.</param>
-    /// <param name="cancellationToken">Stops the run between chunks.</param>
+    /// <param name="progress">Told the number of draws finished so far after each chunk, from the worker threads
+    /// (reports from different threads may arrive out of order; the largest is the count).</param>
+    /// <param name="cancellationToken">Stops the run between chunks with <see cref="OperationCanceledException"/>.</param>
     /// <returns>One result per measure, in the order of <paramref name="measures"/>.</returns>
-    /// <exception cref="InputException">Fewer than 1 draw, fewer than 2 trials, or fewer distinct trial orders (N!) than draws.</exception>
+    /// <exception cref="InputException">Fewer than 1 draw, fewer than 2 trials, or fewer distinct trial orders (N!) than
+    /// draws; the message names the condition, the number of trials and the number of surrogates asked.</exception>
+    /// <exception cref="ArgumentException">No measures or a measure listed twice.</exception>
     public static IReadOnlyList<SurrogateResult> Run(NarrowbandSet set, IReadOnlyList<Measure> measures, int draws,
         ulong seed, string condition, int? maxThreads = null, IProgress<int>? progress = null,
         CancellationToken cancellationToken = default)
