@@ -1,0 +1,160 @@
+using System.Collections.Concurrent;
+using Coupling.Measures;
+using Coupling.Spectral;
+
+namespace Coupling.Statistics;
+
+/// <summary>
+/// Trial-shuffle surrogate test of every measure for every channel pair: the trials of the second channel of each
+/// pair are put in a random order, which keeps each channel's own signal (including anything locked to the stimulus,
+/// which is the same in every trial) and destroys only the trial-by-trial correspondence between the two channels.
+/// Coupling that is merely a shared stimulus-locked response therefore survives the shuffle and is not significant;
+/// what is significant is coupling that goes beyond it, trial by trial.
+/// </summary>
+/// <remarks>
+/// <para>Draw d (0..M−1) uses the trial order <see cref="TrialShuffle.Generate"/>(seed, d); one order serves all pairs
+/// and measures of that draw. Per measure and pair the draws are summarised as they come (running mean and variance,
+/// exceedance count b = number of draws whose test statistic, see <see cref="MeasureCatalog.TestStatistic"/>, is at or
+/// above the observed one); the draws themselves are never stored. p = (b + 1)/(M + 1), the exact p-value of a
+/// permutation test with randomly drawn permutations (Phipson and Smyth 2010, "Permutation p-values should never be
+/// zero", Stat Appl Genet Mol Biol 9(1):39); it lies in [1/(M+1), 1]. z = (observed − mean)/sd with the surrogates'
+/// sample standard deviation; z is NaN when that is 0 (or when M = 1).</para>
+/// <para>Determinism: draws are processed in fixed chunks of <see cref="DrawsPerChunk"/>, each chunk summarised on
+/// its own and the chunk summaries merged in chunk order, so the result is the same to the last bit whatever the
+/// number of threads.</para>
+/// </remarks>
+public static class SurrogateTest
+{
+    /// <summary>Draws per chunk of work. Part of the definition of the result's rounding: changing it changes the last bits.</summary>
+    public const int DrawsPerChunk = 8;
+
+    private const int ChunksPerWave = 32;
+
+    /// <summary>Runs the test.</summary>
+    /// <param name="set">The narrowband signals of one condition in one band.</param>
+    /// <param name="measures">The measures to test, each at most once.</param>
+    /// <param name="draws">Number of surrogates M, at least 1.</param>
+    /// <param name="seed">Seed of the trial orders.</param>
+    /// <param name="condition">Name of the condition, used in error messages.</param>
+    /// <param name="maxThreads">Upper bound on worker threads; null uses every core.</param>
+    /// <param name="progress">Told the number of draws finished so far after each chunk, from the worker threads
+    /// (reports from different threads may arrive out of order; the largest is the count).</param>
+    /// <param name="cancellationToken">Stops the run between chunks with <see cref="OperationCanceledException"/>.</param>
+    /// <returns>One result per measure, in the order of <paramref name="measures"/>.</returns>
+    /// <exception cref="InputException">Fewer than 1 draw, fewer than 2 trials, or fewer distinct trial orders (N!) than
+    /// draws; the message names the condition, the number of trials and the number of surrogates asked.</exception>
+    /// <exception cref="ArgumentException">No measures or a measure listed twice.</exception>
+    public static IReadOnlyList<SurrogateResult> Run(NarrowbandSet set, IReadOnlyList<Measure> measures, int draws,
+        ulong seed, string condition, int? maxThreads = null, IProgress<int>? progress = null,
+        CancellationToken cancellationToken = default)
+    {
+        ArgumentNullException.ThrowIfNull(set);
+        ArgumentNullException.ThrowIfNull(measures);
+        ArgumentNullException.ThrowIfNull(condition);
+        if (maxThreads is < 1) throw new ArgumentOutOfRangeException(nameof(maxThreads), maxThreads, "At least one thread.");
+        CheckDraws(set.TrialCount, draws, condition);
+
+        var prototype = new PairwiseWorkspace(set, measures);
+        int slots = measures.Count, pairs = prototype.PairCount, cells = prototype.OutputLength;
+        int trials = set.TrialCount;
+
+        var identity = new int[trials];
+        for (int n = 0; n < trials; n++) identity[n] = n;
+        var observed = new double[cells];
+        PairwiseKernels.Compute(prototype, identity, observed);
+        var observedStatistic = new double[cells];
+        var twoSided = new bool[cells];
+        for (int k = 0; k < slots; k++)
+        {
+            bool two = MeasureCatalog.TailOf(measures[k]) == TestTail.TwoSided;
+            for (int p = 0; p < pairs; p++)
+            {
+                int i = k * pairs + p;
+                twoSided[i] = two;
+                observedStatistic[i] = MeasureCatalog.TestStatistic(measures[k], observed[i]);
+            }
+        }
+
+        int chunks = (draws + DrawsPerChunk - 1) / DrawsPerChunk;
+        var wave = new NullAccumulator[Math.Min(ChunksPerWave, chunks)];
+        for (int i = 0; i < wave.Length; i++) wave[i] = new NullAccumulator(cells);
+        var total = new NullAccumulator(cells);
+        var workers = new ConcurrentBag<Worker>();
+        workers.Add(new Worker(prototype));
+        var options = new ParallelOptions
+        {
+            MaxDegreeOfParallelism = maxThreads ?? -1,
+            CancellationToken = cancellationToken,
+        };
+        int done = 0;
+
+        for (int first = 0; first < chunks; first += wave.Length)
+        {
+            int count = Math.Min(wave.Length, chunks - first);
+            int waveStart = first;
+            Parallel.For(0, count, options, i =>
+            {
+                int chunk = waveStart + i;
+                var worker = workers.TryTake(out var w) ? w : new Worker(prototype.CreateSibling());
+                var accumulator = wave[i];
+                accumulator.Reset();
+                int start = chunk * DrawsPerChunk, end = Math.Min(draws, start + DrawsPerChunk);
+                for (int d = start; d < end; d++)
+                {
+                    TrialShuffle.Generate(seed, d, worker.Permutation);
+                    PairwiseKernels.Compute(worker.Workspace, worker.Permutation, worker.Values);
+                    accumulator.Add(worker.Values, observedStatistic, twoSided);
+                }
+                workers.Add(worker);
+                int finished = Interlocked.Add(ref done, end - start);
+                progress?.Report(finished);
+            });
+            for (int i = 0; i < count; i++) total.Merge(wave[i]);
+        }
+
+        var results = new SurrogateResult[slots];
+        for (int k = 0; k < slots; k++)
+        {
+            var value = new double[pairs];
+            var mean = new double[pairs];
+            var sd = new double[pairs];
+            var exceed = new int[pairs];
+            var pValue = new double[pairs];
+            var z = new double[pairs];
+            for (int p = 0; p < pairs; p++)
+            {
+                int i = k * pairs + p;
+                value[p] = observed[i];
+                mean[p] = total.Mean[i];
+                sd[p] = draws > 1 ? Math.Sqrt(total.SquaredDeviations[i] / (draws - 1)) : double.NaN;
+                exceed[p] = total.Exceedances[i];
+                pValue[p] = double.IsNaN(observedStatistic[i]) ? double.NaN : (exceed[p] + 1.0) / (draws + 1.0);
+                z[p] = sd[p] > 0 ? (value[p] - mean[p]) / sd[p] : double.NaN;
+            }
+            results[k] = new SurrogateResult(measures[k], draws, value, mean, sd, exceed, pValue, z);
+        }
+        return results;
+    }
+
+    private static void CheckDraws(int trials, int draws, string condition)
+    {
+        if (draws < 1)
+            throw new InputException($"condition '{condition}': the number of surrogates must be at least 1, but {draws} were asked.");
+        if (trials < 2)
+            throw new InputException(
+                $"condition '{condition}' has {trials} trial{(trials == 1 ? "" : "s")}: trial shuffling needs at least 2, but {draws} surrogates were asked.");
+        // N! >= M? Multiply up until the product reaches M (no overflow: it stops by then).
+        long orders = 1;
+        for (int k = 2; k <= trials && orders < draws; k++) orders *= k;
+        if (orders < draws)
+            throw new InputException(
+                $"condition '{condition}' has {trials} trials: at most {orders} distinct trial orders, but {draws} surrogates were asked.");
+    }
+
+    private sealed class Worker(PairwiseWorkspace workspace)
+    {
+        public PairwiseWorkspace Workspace { get; } = workspace;
+        public int[] Permutation { get; } = new int[workspace.Set.TrialCount];
+        public double[] Values { get; } = new double[workspace.OutputLength];
+    }
+}

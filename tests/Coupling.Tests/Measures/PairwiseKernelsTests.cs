@@ -1,0 +1,118 @@
+using Coupling.Measures;
+using Coupling.Statistics;
+
+namespace Coupling.Tests.Measures;
+
+public class PairwiseKernelsTests
+{
+    private static readonly Measure[] Every = MeasureCatalog.All.ToArray();
+
+    // Every measure is bounded by 1 in magnitude and is a sum of at most (trials x time points) terms of size <= 1, so
+    // rounding differences between the kernel and the reference stay near (N + T) * 2^-52 ~ 1e-14; 1e-12 leaves room
+    // for the ratios and the atanh of the Fisher combination (|r| well below 1 on random data).
+    private const double Tolerance = 1e-12;
+
+    public static TheoryData<int, int, int, int> Sizes => new()
+    {
+        { 3, 7, 5, 1 },
+        { 5, 13, 9, 2 },
+        { 7, 13, 4, 3 },
+        { 2, 7, 11, 4 },
+    };
+
+    [Theory]
+    [MemberData(nameof(Sizes))]
+    public void Kernels_equal_the_reference_formulas_with_trials_in_their_own_order(int channels, int trials, int times, int seed)
+    {
+        var set = TestSignals.Random(channels, trials, times, seed);
+        AssertMatchesReference(set, TestSignals.Identity(trials));
+    }
+
+    [Theory]
+    [MemberData(nameof(Sizes))]
+    public void Kernels_equal_the_reference_formulas_with_a_trial_permutation(int channels, int trials, int times, int seed)
+    {
+        var set = TestSignals.Random(channels, trials, times, seed + 100);
+        var perm = new int[trials];
+        TrialShuffle.Generate((ulong)seed, 0, perm);
+        Assert.NotEqual(TestSignals.Identity(trials), perm);
+        AssertMatchesReference(set, perm);
+    }
+
+    [Fact]
+    public void Kernels_equal_the_reference_formulas_when_some_amplitudes_are_exactly_zero()
+    {
+        // Zero amplitude: no phase, the trial's unit phasor counts as 0 (the documented convention).
+        var set = TestSignals.Random(5, 9, 6, seed: 17, zeroFraction: 0.15);
+        Assert.Contains(set.Data, z => z == System.Numerics.Complex.Zero);
+        AssertMatchesReference(set, [8, 0, 7, 1, 6, 2, 5, 3, 4]);
+    }
+
+    [Fact]
+    public void A_subset_of_measures_in_any_order_gives_the_same_values_as_all_measures()
+    {
+        var set = TestSignals.Random(4, 8, 6, seed: 5);
+        var perm = new int[] { 3, 1, 0, 7, 6, 2, 5, 4 };
+        var all = Compute(set, Every, perm);
+        Measure[] subset = [Measure.AecOrth, Measure.Pli, Measure.Plv];
+        var some = Compute(set, subset, perm);
+        int pairs = PairIndex.Count(4);
+        for (int k = 0; k < subset.Length; k++)
+            Assert.Equal(all.AsSpan((int)subset[k] * pairs, pairs).ToArray(), some.AsSpan(k * pairs, pairs).ToArray());
+    }
+
+    [Fact]
+    public void A_reused_workspace_gives_the_same_values_as_a_fresh_one()
+    {
+        var set = TestSignals.Random(4, 10, 5, seed: 8);
+        var workspace = new PairwiseWorkspace(set, Every);
+        var first = new double[workspace.OutputLength];
+        var again = new double[workspace.OutputLength];
+        var other = new double[workspace.OutputLength];
+        var perm = new int[10];
+        TrialShuffle.Generate(3, 0, perm);
+        PairwiseKernels.Compute(workspace, perm, first);
+        PairwiseKernels.Compute(workspace, TestSignals.Identity(10), other);
+        PairwiseKernels.Compute(workspace.CreateSibling(), perm, again);
+        Assert.Equal(first, again);
+        PairwiseKernels.Compute(workspace, perm, again);
+        Assert.Equal(first, again);
+        Assert.NotEqual(first, other);
+    }
+
+    [Fact]
+    public void A_sequence_that_is_not_a_permutation_is_refused()
+    {
+        var set = TestSignals.Random(3, 4, 2, seed: 1);
+        var workspace = new PairwiseWorkspace(set, Every);
+        var values = new double[workspace.OutputLength];
+        Assert.Throws<ArgumentException>(() => PairwiseKernels.Compute(workspace, [0, 1, 1, 3], values));
+        Assert.Throws<ArgumentException>(() => PairwiseKernels.Compute(workspace, [0, 1, 2], values));
+        Assert.Throws<ArgumentException>(() => PairwiseKernels.Compute(workspace, [0, 1, 2, 4], values));
+        Assert.Throws<ArgumentException>(() => PairwiseKernels.Compute(workspace, [0, 1, 2, 3], new double[3]));
+        Assert.Throws<ArgumentException>(() => new PairwiseWorkspace(set, [Measure.Plv, Measure.Plv]));
+    }
+
+    private static double[] Compute(Coupling.Spectral.NarrowbandSet set, IReadOnlyList<Measure> measures, int[] perm)
+    {
+        var workspace = new PairwiseWorkspace(set, measures);
+        var values = new double[workspace.OutputLength];
+        PairwiseKernels.Compute(workspace, perm, values);
+        return values;
+    }
+
+    private static void AssertMatchesReference(Coupling.Spectral.NarrowbandSet set, int[] perm)
+    {
+        var values = Compute(set, Every, perm);
+        int channels = set.ChannelCount, pairs = PairIndex.Count(channels);
+        for (int k = 0; k < Every.Length; k++)
+            for (int p = 0; p < pairs; p++)
+            {
+                var (a, b) = PairIndex.Channels(p, channels);
+                double expected = ReferenceMeasures.Value(Every[k], set, a, b, perm);
+                double actual = values[k * pairs + p];
+                Assert.True(Math.Abs(actual - expected) <= Tolerance * Math.Max(1, Math.Abs(expected)),
+                    $"{MeasureCatalog.Key(Every[k])} pair ({a},{b}): kernel {actual:R}, reference {expected:R}");
+            }
+    }
+}
