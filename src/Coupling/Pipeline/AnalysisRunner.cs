@@ -53,7 +53,7 @@ public static class AnalysisRunner
                 if (!input.EventLabels.Contains(label))
                     throw new InputException($"{plan.Source}: conditions.{condition.Name}: event label '{label}' does not occur in {input.Source}; labels there: {string.Join(", ", input.EventLabels.Distinct().Order(StringComparer.Ordinal))}.");
             var trials = input.Trials(condition, plan.Trial, pad);
-            SurrogateTest.CheckFeasible(trials.TrialCount, plan.Surrogates, $"condition '{condition.Name}'");
+            SurrogateTest.CheckFeasible(trials.TrialCount, plan.Surrogates, condition.Name);
             trialSets.Add(trials);
         }
 
@@ -71,7 +71,8 @@ public static class AnalysisRunner
                 var narrowband = NarrowbandExtractor.Extract(trials, decompositions[bi], plan.Window, steps[bi], workers);
                 var stageProgress = progress is null ? null
                     : new Progress<int>(done => progress.Report(new RunProgress($"{stage}: surrogates", done, plan.Surrogates)));
-                var tested = SurrogateTest.Run(narrowband, plan.Measures, plan.Surrogates, Seeds.For(plan.Seed, ci, bi), workers, stageProgress);
+                var tested = SurrogateTest.Run(narrowband, plan.Measures, plan.Surrogates, Seeds.For(plan.Seed, ci, bi), trials.Condition,
+                    workers > 0 ? workers : null, stageProgress);
                 foreach (var m in tested)
                 {
                     var corrected = FalseDiscoveryRate.BenjaminiHochberg(m.P);

@@ -201,14 +201,16 @@ public static class PlanReader
 
     private static IReadOnlyList<Measure> ReadMeasures(Context ctx, YamlNode node)
     {
-        if (node is YamlScalarNode s && s.Value == "all") return Enum.GetValues<Measure>();
+        if (node is YamlScalarNode s && s.Value == "all") return MeasureCatalog.All;
         var keys = ctx.StringList(node, "measures", unique: true);
         var list = new List<Measure>();
         foreach (var k in keys)
         {
-            if (!MeasureCatalog.TryParse(k, out var measure))
-                throw ctx.Error(node, "measures", $"'{k}' is not a known measure; allowed: all, {string.Join(", ", Enum.GetValues<Measure>().Select(MeasureCatalog.Key))}");
-            list.Add(measure);
+            try { list.Add(MeasureCatalog.Parse(k)); }
+            catch (InputException)
+            {
+                throw ctx.Error(node, "measures", $"'{k}' is not a known measure; allowed: all, {string.Join(", ", MeasureCatalog.All.Select(MeasureCatalog.Key))}");
+            }
         }
         return list;
     }

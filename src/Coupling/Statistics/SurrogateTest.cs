@@ -52,7 +52,7 @@ public static class SurrogateTest
         ArgumentNullException.ThrowIfNull(measures);
         ArgumentNullException.ThrowIfNull(condition);
         if (maxThreads is < 1) throw new ArgumentOutOfRangeException(nameof(maxThreads), maxThreads, "At least one thread.");
-        CheckDraws(set.TrialCount, draws, condition);
+        CheckFeasible(set.TrialCount, draws, condition);
 
         var prototype = new PairwiseWorkspace(set, measures);
         int slots = measures.Count, pairs = prototype.PairCount, cells = prototype.OutputLength;
@@ -136,7 +136,12 @@ public static class SurrogateTest
         return results;
     }
 
-    private static void CheckDraws(int trials, int draws, string condition)
+    /// <summary>
+    /// Checks that <paramref name="trials"/> trials allow <paramref name="draws"/> surrogate draws: at least one draw,
+    /// at least 2 trials, and at least as many distinct trial orders (N!) as draws.
+    /// </summary>
+    /// <exception cref="InputException">The message names the condition, the trials and the surrogates asked.</exception>
+    public static void CheckFeasible(int trials, int draws, string condition)
     {
         if (draws < 1)
             throw new InputException($"condition '{condition}': the number of surrogates must be at least 1, but {draws} were asked.");
