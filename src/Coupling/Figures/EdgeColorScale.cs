@@ -1,0 +1,33 @@
+using ScottPlot;
+
+namespace Coupling.Figures;
+
+/// <summary>
+/// The colour scale of network edges: the upper part of a sequential map (so the weakest edge is still visible
+/// on white) over [0, largest weight]. Serves as the source of the figure's colour bar.
+/// </summary>
+internal sealed class EdgeColorScale : IHasColorAxis
+{
+    private readonly double _top;
+
+    public EdgeColorScale(IColormap baseMap, double from, double top)
+    {
+        Colormap = new Tail(baseMap, from);
+        _top = top;
+    }
+
+    public IColormap Colormap { get; set; }
+
+    public ScottPlot.Range GetRange() => new(0, _top);
+
+    /// <summary>Colour of an edge of weight <paramref name="weight"/>.</summary>
+    public Color ColorOf(double weight) => Colormap.GetColor(Math.Clamp(weight / _top, 0, 1));
+
+    /// <summary>The part of <c>inner</c> from <c>from</c> to 1, stretched over 0..1.</summary>
+    private sealed class Tail(IColormap inner, double from) : IColormap
+    {
+        public string Name => $"{inner.Name} (from {from:0.##})";
+
+        public Color GetColor(double position) => inner.GetColor(from + (1 - from) * Math.Clamp(position, 0, 1));
+    }
+}
