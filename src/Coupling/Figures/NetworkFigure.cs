@@ -9,8 +9,8 @@ namespace Coupling.Figures;
 /// <remarks>
 /// Nodes sit at the channels' (x, y) positions when every channel has one (equal units on both axes, as seen
 /// from above), else evenly on a circle, the first channel at the top and the rest clockwise. Only significant
-/// pairs are drawn; an edge's width (1 to 7 px) and colour grow with |value| on a scale from 0 to the largest
-/// significant |value|, with the colour bar beside. Negative values, for signed measures, are dashed. The
+/// pairs are drawn; an edge's width (1 to 7 px, thinner for many channels) and colour grow with |value| on a scale
+/// from the smallest to the largest significant |value| (from 0 when they are all equal), with the colour bar beside. Negative values, for signed measures, are dashed. The
 /// colours are the upper 85 % of the perceptually uniform cmocean Amp map (Thyng KM, Greene CA, Hetland RD,
 /// Zimmerle HM, DiMarco SF, 2016, True colors of oceanography, Oceanography 29(3):9-13), so that the weakest
 /// edge is still visible. A figure with no significant pair shows the nodes and says so.
@@ -37,13 +37,16 @@ public static class NetworkFigure
         var xy = placed ? Placed(result) : Circle(n);
 
         var edges = graph.Edges.Where(e => !double.IsNaN(e.Weight)).OrderBy(e => e.Weight).ToArray();
-        double top = edges.Length == 0 ? 1 : edges[^1].Weight;
-        if (!(top > 0) || double.IsInfinity(top)) top = 1;
-        var scale = new EdgeColorScale(new ScottPlot.Colormaps.Amp(), 0.15, top);
+        var finite = edges.Where(e => double.IsFinite(e.Weight)).ToArray();
+        double high = finite.Length == 0 ? 1 : finite[^1].Weight;
+        double low = finite.Length == 0 ? 0 : finite[0].Weight;
+        if (!(high - low > 1e-9 * Math.Abs(high))) low = high > 0 ? 0 : high - 1; // all equal: scale from 0
+        var scale = new EdgeColorScale(new ScottPlot.Colormaps.Amp(), 0.15, low, high);
+        float maxWidth = n <= 20 ? MaxWidth : n <= 40 ? 5f : 3.5f;
         foreach (var e in edges)
         {
             var line = plot.Add.Line(xy[e.A], xy[e.B]);
-            line.LineWidth = MinWidth + (MaxWidth - MinWidth) * (float)Math.Clamp(e.Weight / top, 0, 1);
+            line.LineWidth = MinWidth + (maxWidth - MinWidth) * (float)scale.Fraction(e.Weight);
             line.LineColor = scale.ColorOf(e.Weight);
             line.MarkerSize = 0;
             if (e.Value < 0) line.LinePattern = LinePattern.Dashed;
