@@ -14,7 +14,8 @@ namespace Coupling.Outputs;
 /// invariant-culture shortest round-trip text ("R"), NaN is NA, infinities are Inf and -Inf; significant is
 /// true or false. Text fields holding a tab, quote or line break are double-quoted (RFC 4180 style). Lines end
 /// in LF; UTF-8 without a byte-order mark; written atomically. R's <c>read.delim(f)</c> and pandas'
-/// <c>read_csv(f, sep="\t")</c> read it with no further options.
+/// <c>read_csv(f, sep="\t")</c> read it with no further options (pandas needs
+/// <c>float_precision="round_trip"</c> to get every double back exactly; its default parser can be off in the last digit).
 /// </remarks>
 public static class EdgeTableWriter
 {
