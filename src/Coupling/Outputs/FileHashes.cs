@@ -1,0 +1,26 @@
+using System.Security.Cryptography;
+
+namespace Coupling.Outputs;
+
+/// <summary>Content hashes of input files, for the run manifest.</summary>
+public static class FileHashes
+{
+    /// <summary>
+    /// SHA-256 of the file's bytes as 64 lowercase hex digits, read as a stream (the file is never held in memory whole).
+    /// </summary>
+    /// <remarks>SHA-256 as specified in NIST FIPS 180-4, Secure Hash Standard (2015).</remarks>
+    /// <exception cref="InputException">The file does not exist or cannot be read.</exception>
+    public static string Sha256(string path)
+    {
+        ArgumentException.ThrowIfNullOrEmpty(path);
+        try
+        {
+            using var stream = new FileStream(path, FileMode.Open, FileAccess.Read, FileShare.Read, bufferSize: 1 << 20, FileOptions.SequentialScan);
+            return Convert.ToHexStringLower(SHA256.HashData(stream));
+        }
+        catch (Exception e) when (e is IOException or UnauthorizedAccessException)
+        {
+            throw new InputException($"Cannot read input file '{path}' to hash it: {e.Message}", e);
+        }
+    }
+}
