@@ -32,7 +32,7 @@ public sealed record Manifest
     public JsonNode? Plan { get; init; }
 
     /// <summary>The seed all randomness of the run came from, or null when nothing random was drawn.</summary>
-    public long? Seed { get; init; }
+    public ulong? Seed { get; init; }
 
     /// <summary>The parameters each band decomposition actually used.</summary>
     public IReadOnlyList<DecompositionInfo> Decompositions { get; init; } = [];
@@ -40,11 +40,8 @@ public sealed record Manifest
     /// <summary>Kept trial counts and dropped trials, per condition.</summary>
     public IReadOnlyList<ConditionTrials> Conditions { get; init; } = [];
 
-    /// <summary>Time step between analysed time points in seconds, or null when not applicable.</summary>
-    public double? TimeStepSeconds { get; init; }
-
-    /// <summary>The same time step in samples of the (possibly resampled) data, or null.</summary>
-    public int? TimeStepSamples { get; init; }
+    /// <summary>Time step between analysed time points, per band.</summary>
+    public IReadOnlyList<BandTimeStep> TimeSteps { get; init; } = [];
 
     /// <summary>Output files written by the run, relative to the results folder.</summary>
     public IReadOnlyList<string> Outputs { get; init; } = [];

@@ -27,8 +27,7 @@ public class ManifestTests
             new ConditionTrials("go", 58, ["trial 12: amplitude above 150 uV", "trial 40: overlaps recording end"]),
             new ConditionTrials("stop", 60, []),
         ],
-        TimeStepSeconds = 0.004,
-        TimeStepSamples = 1,
+        TimeSteps = [new BandTimeStep("theta", 15, 0.06), new BandTimeStep("gamma", 1, 0.004)],
         Outputs = ["edges.tsv", "manifest.json"],
         Extra = new JsonObject { ["shard"] = 3 },
     };
@@ -59,8 +58,7 @@ public class ManifestTests
         Assert.True(double.IsNaN(back.Decompositions[1].Parameters["time_sd_s"]));
         Assert.Equal(m.Conditions.Select(c => (c.Condition, c.Trials)), back.Conditions.Select(c => (c.Condition, c.Trials)));
         Assert.Equal(m.Conditions[0].Dropped, back.Conditions[0].Dropped);
-        Assert.Equal(m.TimeStepSeconds, back.TimeStepSeconds);
-        Assert.Equal(m.TimeStepSamples, back.TimeStepSamples);
+        Assert.Equal(m.TimeSteps, back.TimeSteps);
         Assert.Equal(m.Outputs, back.Outputs);
         Assert.Equal(3, (int)back.Extra!["shard"]!);
     }

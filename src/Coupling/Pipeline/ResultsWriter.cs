@@ -1,0 +1,112 @@
+using System.Text.Json;
+using System.Text.Json.Nodes;
+using System.Text.Json.Serialization;
+using Coupling.Figures;
+using Coupling.Graphs;
+using Coupling.Outputs;
+using Coupling.Plans;
+using Coupling.Results;
+
+namespace Coupling.Pipeline;
+
+/// <summary>Writes the results folder of a run: tables, matrices, graphs, figures, manifest and report.</summary>
+/// <remarks>
+/// Everything is written into a temporary sibling folder that is renamed into place only when all of it is written
+/// (<see cref="OutputFolder"/>): a stopped or failed run leaves no partial results and keeps an older folder.
+/// Layout (docs/outputs.md): report.md, manifest.json, edges.tsv, nodes.tsv, matrices/, graphs/, figures/.
+/// </remarks>
+public static class ResultsWriter
+{
+    private static readonly JsonSerializerOptions PlanJson = new()
+    {
+        PropertyNamingPolicy = JsonNamingPolicy.SnakeCaseLower,
+        Converters = { new JsonStringEnumConverter(JsonNamingPolicy.KebabCaseLower) },
+    };
+
+    /// <summary>Writes everything; returns the results folder's path.</summary>
+    public static string Write(Plan plan, LoadedInput input, Analysis analysis, RunContext context, IProgress<RunProgress>? progress)
+    {
+        using var folder = OutputFolder.Begin(plan.Output);
+        var written = new List<string>();
+        string Rel(string path) => Path.GetRelativePath(folder.WorkingPath, path).Replace('\\', '/');
+
+        Directory.CreateDirectory(folder.PathOf("matrices"));
+        Directory.CreateDirectory(folder.PathOf("graphs"));
+        if (plan.Figures) Directory.CreateDirectory(folder.PathOf("figures"));
+
+        EdgeTableWriter.Write(analysis.Results, folder.PathOf("edges.tsv"));
+        written.Add("edges.tsv");
+
+        var graphs = new List<(string, string, string, ChannelGraph)>();
+        int done = 0, total = analysis.Results.Count;
+        foreach (var r in analysis.Results)
+        {
+            progress?.Report(new RunProgress("writing results", done++, total));
+            written.AddRange(MatrixCsvWriter.Write(r, folder.PathOf("matrices")).Select(Rel));
+            var graph = ChannelGraphs.Build(r);
+            graphs.Add((r.Condition, r.Band, r.Measure, graph));
+            string stem = OutputNames.Stem(r);
+            GraphMlWriter.Write(graph, r, folder.PathOf($"graphs/{stem}.graphml"));
+            written.Add($"graphs/{stem}.graphml");
+            if (plan.Figures)
+            {
+                MatrixFigure.Save(r, folder.PathOf($"figures/{stem}_matrix.png"));
+                NetworkFigure.Save(r, folder.PathOf($"figures/{stem}_network.png"));
+                written.Add($"figures/{stem}_matrix.png");
+                written.Add($"figures/{stem}_network.png");
+            }
+        }
+        progress?.Report(new RunProgress("writing results", total, total));
+        NodeTableWriter.Write(graphs, folder.PathOf("nodes.tsv"));
+        written.Add("nodes.tsv");
+
+        RunReport.Write(plan, input, analysis, graphs.Select(g => g.Item4).ToArray(), folder.PathOf("report.md"));
+        written.Add("report.md");
+
+        var manifest = new Manifest
+        {
+            Tool = ToolInfo.Current(),
+            Started = context.Started,
+            Finished = DateTimeOffset.UtcNow,
+            CommandLine = context.CommandLine is null ? [] : [context.CommandLine],
+            Inputs = InputFiles(plan, input).Select(InputFileRecord.Of).ToArray(),
+            Plan = JsonSerializer.SerializeToNode(plan, PlanJson),
+            Seed = plan.Seed,
+            Decompositions = analysis.Decompositions,
+            Conditions = analysis.Conditions.Select(c => new ConditionTrials(c.Condition, c.Trials, c.Dropped)).ToArray(),
+            TimeSteps = plan.Bands.Select((b, i) => new BandTimeStep(b.Name, analysis.TimeSteps[i], analysis.TimeSteps[i] / input.SampleRate)).ToArray(),
+            Outputs = written.Append("manifest.json").ToArray(),
+            Extra = new JsonObject
+            {
+                ["sample_rate_hz"] = input.SampleRate,
+                ["channels"] = new JsonArray(input.Channels.Select(c => (JsonNode)JsonValue.Create(c.Label)!).ToArray()),
+                ["pad_samples"] = analysis.PadSamples,
+                ["threads"] = context.Threads,
+                ["analysis_seconds"] = context.Elapsed.TotalSeconds,
+                ["input_notes"] = new JsonArray(input.Notes.Select(n => (JsonNode)JsonValue.Create(n)!).ToArray()),
+            },
+        };
+        ManifestWriter.Write(manifest, folder.PathOf("manifest.json"));
+        folder.Commit();
+        return folder.TargetPath;
+    }
+
+    private static IEnumerable<string> InputFiles(Plan plan, LoadedInput input)
+    {
+        var files = new List<string>();
+        if (File.Exists(plan.Source)) files.Add(plan.Source);
+        files.Add(plan.Recording);
+        if (plan.Events is not null) files.Add(plan.Events);
+        if (plan.Epochs is not null) files.Add(plan.Epochs.LabelsFile);
+        var sidecars = RecordingSidecars(plan.Recording);
+        files.AddRange(sidecars);
+        return files.Distinct(StringComparer.Ordinal);
+    }
+
+    private static IEnumerable<string> RecordingSidecars(string recording)
+    {
+        if (Path.GetExtension(recording).Equals(".npy", StringComparison.OrdinalIgnoreCase)) return [];
+        var s = Formats.RecordingSidecars.FindBesides(recording);
+        return new[] { s.Events, s.Channels, s.Electrodes }.OfType<string>();
+    }
+}
