@@ -82,47 +82,63 @@ public static class Simulator
         for (int i = 0; i < componentSeeds.Length; i++) componentSeeds[i] = master.Next();
         Random Component(int i) => new Xoshiro256StarStar(componentSeeds[i]);
 
-        // Background: independent 1/f^alpha noise on every channel.
+        // All Gaussian processes are drawn as shaped spectra, then inverted together (two per transform).
         int channelCount = Montage.Labels.Length;
-        var pink = SpectralShaping.PowerLawGain(options.BackgroundExponent, options.BackgroundFloorHz);
+        double[] pink = SpectralShaping.Gain(m, fs, SpectralShaping.PowerLawShape(options.BackgroundExponent, options.BackgroundFloorHz));
+        double[] thetaGain = SpectralShaping.Gain(m, fs, SpectralShaping.BandShape(ThetaSourceLow, ThetaSourceHigh, SourceTaperHz));
+        double[] betaGain = SpectralShaping.Gain(m, fs, SpectralShaping.BandShape(BetaSourceLow, BetaSourceHigh, SourceTaperHz));
+        double[] alphaGain = SpectralShaping.Gain(m, fs, SpectralShaping.BandShape(AlphaSourceLow, AlphaSourceHigh, SourceTaperHz));
+        double[] slowGain = SpectralShaping.Gain(m, fs, SpectralShaping.BandShape(EnvelopeLow, EnvelopeHigh, EnvelopeTaperHz));
+        var spectra = new List<System.Numerics.Complex[]>();
+        for (int c = 0; c < channelCount; c++) spectra.Add(SpectralShaping.RandomSpectrum(Component(c), pink));
+        var theta = SpectralShaping.RandomSpectrum(Component(10), thetaGain);
+        var beta = SpectralShaping.RandomSpectrum(Component(11), betaGain);
+        spectra.Add(theta);
+        spectra.Add(SpectralShaping.Delayed(theta, fs, options.ThetaLag));
+        spectra.Add(beta);
+        spectra.Add(SpectralShaping.Delayed(beta, fs, options.BetaLag));
+        spectra.Add(SpectralShaping.RandomSpectrum(Component(12), betaGain));
+        spectra.Add(SpectralShaping.RandomSpectrum(Component(13), alphaGain));
+        spectra.Add(SpectralShaping.RandomSpectrum(Component(14), slowGain));
+        var signals = SpectralShaping.ToSignals(spectra, n);
+        int next0 = channelCount;
+        double[] thetaA = signals[next0], thetaB = signals[next0 + 1];
+        double[] betaA = signals[next0 + 2], betaDelayed = signals[next0 + 3], betaIndependent = signals[next0 + 4];
+        double[] alpha = signals[next0 + 5], slow = signals[next0 + 6];
+
+        // Background: independent 1/f^alpha noise on every channel.
         var samples = new double[channelCount][];
         for (int c = 0; c < channelCount; c++)
-            samples[c] = SpectralShaping.ToSignal(SpectralShaping.ShapedSpectrum(Component(c), m, fs, pink), fs, n, options.BackgroundRms);
+        {
+            samples[c] = signals[c];
+            for (int i = 0; i < n; i++) samples[c][i] *= options.BackgroundRms;
+        }
         double BandVariance(string band)
         {
             var b = Bands.First(x => x.Name == band);
-            return options.BackgroundRms * options.BackgroundRms * SpectralShaping.BandFraction(m, fs, pink, b.Low, b.High);
+            return options.BackgroundRms * options.BackgroundRms * SpectralShaping.BandFraction(pink, fs, b.Low, b.High);
         }
         double[] Channel(string label) => samples[Montage.IndexOf(label)];
 
         // (a) theta, phase-coupled at a lag, always.
-        var theta = SpectralShaping.ShapedSpectrum(Component(10), m, fs,
-            SpectralShaping.BandGain(ThetaSourceLow, ThetaSourceHigh, SourceTaperHz));
         double thetaAmp = Math.Sqrt(options.CoupledSnr * BandVariance("theta"));
-        AddTo(Channel(Montage.ThetaA), SpectralShaping.ToSignal(theta, fs, n, thetaAmp));
-        AddTo(Channel(Montage.ThetaB), SpectralShaping.ToSignal(theta, fs, n, thetaAmp, options.ThetaLag));
+        AddTo(Channel(Montage.ThetaA), thetaA, thetaAmp);
+        AddTo(Channel(Montage.ThetaB), thetaB, thetaAmp);
 
         // (b) beta, phase-coupled at a lag around the trials of one condition, independent of equal power elsewhere.
-        var betaGain = SpectralShaping.BandGain(BetaSourceLow, BetaSourceHigh, SourceTaperHz);
-        var beta = SpectralShaping.ShapedSpectrum(Component(11), m, fs, betaGain);
-        var betaOther = SpectralShaping.ShapedSpectrum(Component(12), m, fs, betaGain);
         double betaAmp = Math.Sqrt(options.CoupledSnr * BandVariance("beta"));
-        AddTo(Channel(Montage.BetaA), SpectralShaping.ToSignal(beta, fs, n, betaAmp));
-        var delayed = SpectralShaping.ToSignal(beta, fs, n, betaAmp, options.BetaLag);
-        var independent = SpectralShaping.ToSignal(betaOther, fs, n, betaAmp);
+        AddTo(Channel(Montage.BetaA), betaA, betaAmp);
         var mask = CouplingMask(n, fs, onsets, labels, options);
         var betaB = Channel(Montage.BetaB);
-        for (int i = 0; i < n; i++) betaB[i] += mask[i] * delayed[i] + Math.Sqrt(1.0 - mask[i] * mask[i]) * independent[i];
+        for (int i = 0; i < n; i++)
+            betaB[i] += betaAmp * (mask[i] * betaDelayed[i] + Math.Sqrt(1.0 - mask[i] * mask[i]) * betaIndependent[i]);
 
         // (c) alpha, one source seen by two channels with different real gains and no delay.
-        var alpha = SpectralShaping.ToSignal(SpectralShaping.ShapedSpectrum(Component(13), m, fs,
-            SpectralShaping.BandGain(AlphaSourceLow, AlphaSourceHigh, SourceTaperHz)), fs, n, Math.Sqrt(options.MixingSnr * BandVariance("alpha")));
-        AddTo(Channel(Montage.MixA), alpha);
-        AddTo(Channel(Montage.MixB), alpha, options.MixingGain);
+        double alphaAmp = Math.Sqrt(options.MixingSnr * BandVariance("alpha"));
+        AddTo(Channel(Montage.MixA), alpha, alphaAmp);
+        AddTo(Channel(Montage.MixB), alpha, options.MixingGain * alphaAmp);
 
         // (d) gamma carriers with independent phases sharing one slow envelope.
-        var slow = SpectralShaping.ToSignal(SpectralShaping.ShapedSpectrum(Component(14), m, fs,
-            SpectralShaping.BandGain(EnvelopeLow, EnvelopeHigh, EnvelopeTaperHz)), fs, n, 1.0);
         // E[exp(2κl)] = exp(2κ²) for unit-variance Gaussian l; a unit cosine has mean square 1/2.
         double gammaAmp = Math.Sqrt(2.0 * options.EnvelopeSnr * BandVariance("gamma") / Math.Exp(2.0 * EnvelopeDepth * EnvelopeDepth));
         var carrierRng = Component(15);
