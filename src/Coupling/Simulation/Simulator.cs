@@ -12,9 +12,11 @@ namespace Coupling.Simulation;
 /// task with two cue conditions, with five channel pairs whose relation is known (see <see cref="GroundTruth"/>).
 /// </summary>
 /// <remarks>
-/// <para>Every channel carries its own 1/f^alpha background, made by shaping white Gaussian noise in the frequency
-/// domain (MathNet FFT) with amplitude gain f^(-alpha/2), flat below <see cref="ScenarioOptions.BackgroundFloorHz"/>.
-/// On top of it:</para>
+/// <para>Every channel carries its own 1/f^alpha background (power spectral density proportional to f^(−alpha), alpha =
+/// <see cref="ScenarioOptions.BackgroundExponent"/>, 1 by default): the spectrum of white Gaussian noise is multiplied by the
+/// amplitude gain f^(−alpha/2), held flat below <see cref="ScenarioOptions.BackgroundFloorHz"/>, and inverted with the MathNet
+/// FFT (the white-noise bins are drawn directly in their known distribution; see the internal SpectralShaping). All
+/// band-limited sources are made the same way with a flat gain and raised-cosine flanks. On top of the background:</para>
 /// <list type="bullet">
 /// <item>L1→R4: band-limited noise at 5–7 Hz (theta), R4 a copy delayed by <see cref="ScenarioOptions.ThetaLag"/>, all the time.</item>
 /// <item>L2→R5: band-limited noise at 17–23 Hz (beta); R5 carries a copy delayed by <see cref="ScenarioOptions.BetaLag"/> around the
@@ -282,7 +284,7 @@ public static class Simulator
                 $"(phase {2 * Math.PI * 20.0 * o.BetaLag:0.###} rad at 20 Hz) only in '{o.BetaCondition}' trials. In '{o.OtherCondition}' trials " +
                 $"{Montage.BetaB} carries independent beta activity of the same power, so no measure should find the pair there and band power " +
                 $"does not tell the conditions apart.")),
-            new(Montage.MixA, Montage.MixB, TruthKind.ZeroLagMixing, "alpha", 0.0, both, o.MixingSnr, o.MixingSnr * o.MixingGain * o.MixingGain,
+            new(Montage.MixA, Montage.MixB, TruthKind.ZeroLagMixing, "alpha", 0.0, both, o.MixingSnr, Math.Round(o.MixingSnr * o.MixingGain * o.MixingGain, 9),
                 [Measure.Plv, Measure.Ppc, Measure.Coherence, Measure.Aec],
                 [Measure.Pli, Measure.Wpli, Measure.WpliDebiased, Measure.ImagCoherency, Measure.AecOrth],
                 string.Create(inv, $"One 9-12 Hz band-limited noise source seen by {Montage.MixA} with gain 1 and by {Montage.MixB} with gain {o.MixingGain}, " +
@@ -295,7 +297,7 @@ public static class Simulator
             new(Montage.EvokedA, Montage.EvokedB, TruthKind.StimulusLocked, "alpha", null, both, evokedSnr, evokedSnr,
                 [], all,
                 $"The same deterministic damped 10 Hz oscillation starts at every onset in both channels, with identical phase in every " +
-                "trial, over independent backgrounds. This is not coupling: raw plv, ppc and coherence are high in the window, but " +
+                "trial, over independent backgrounds (its SNR is stated at the peak of the response's envelope, 0.3 s after onset). This is not coupling: raw plv, ppc and coherence are high in the window, but " +
                 "trial-shuffle surrogates keep the stimulus-locked part and reproduce them, so no measure is significant; subtracting the " +
                 "condition's trial mean removes the response."),
         };

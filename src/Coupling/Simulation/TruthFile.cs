@@ -1,3 +1,4 @@
+using System.Text.Encodings.Web;
 using System.Text.Json;
 
 namespace Coupling.Simulation;
@@ -12,6 +13,7 @@ public static class TruthFile
     private static readonly JsonSerializerOptions Json = new()
     {
         WriteIndented = true,
+        Encoder = JavaScriptEncoder.UnsafeRelaxedJsonEscaping, // keep quotes and apostrophes readable in the notes
         PropertyNamingPolicy = JsonNamingPolicy.SnakeCaseLower,
         IgnoreReadOnlyProperties = true,
         Converters = { new MeasureKeyConverter() },

@@ -14,8 +14,8 @@ namespace Coupling.Simulation;
 /// Delay of channel B behind channel A in seconds: the cross-spectrum X_A·conj(X_B) then has angle +2π·f·lag.
 /// 0 for zero-lag mixing; null where no lag is defined (envelope-only, stimulus-locked).
 /// </param>
-/// <param name="Conditions">Conditions (event labels) in which the relation is present.</param>
-/// <param name="SnrA">Power of the pair's source on channel A over the expected background power in the band.</param>
+/// <param name="Conditions">Conditions (event labels) in which the relation is present; in any other condition the pair is independent and no measure should find it.</param>
+/// <param name="SnrA">Power of the pair's source on channel A over the expected background power of that channel in the band (for the stimulus-locked pair: at the peak of the response's envelope).</param>
 /// <param name="SnrB">The same ratio on channel B.</param>
 /// <param name="DetectedBy">
 /// Measures expected to come out significant against trial-shuffle surrogates for this pair in the conditions
