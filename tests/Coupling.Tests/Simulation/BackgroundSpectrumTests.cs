@@ -4,7 +4,8 @@ using MathNet.Numerics.Random;
 
 namespace Coupling.Tests.Simulation;
 
-public sealed class BackgroundSpectrumTests(ScenarioFixture fixture) : IClassFixture<ScenarioFixture>
+[Collection(ScenarioCollection.Name)]
+public sealed class BackgroundSpectrumTests(ScenarioFixture fixture)
 {
     private const double SampleRate = 250.0;
 

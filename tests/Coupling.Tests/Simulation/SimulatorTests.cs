@@ -3,7 +3,8 @@ using Coupling.Simulation;
 
 namespace Coupling.Tests.Simulation;
 
-public sealed class SimulatorTests(ScenarioFixture fixture) : IClassFixture<ScenarioFixture>
+[Collection(ScenarioCollection.Name)]
+public sealed class SimulatorTests(ScenarioFixture fixture)
 {
     // Small scenario for the tests that generate several recordings.
     private static readonly ScenarioOptions Small = new() { TrialsPerCondition = 8 };

@@ -3,7 +3,8 @@ using Coupling.Simulation;
 
 namespace Coupling.Tests.Simulation;
 
-public sealed class TruthFileTests(ScenarioFixture fixture) : IClassFixture<ScenarioFixture>
+[Collection(ScenarioCollection.Name)]
+public sealed class TruthFileTests(ScenarioFixture fixture)
 {
     [Fact]
     public void Truth_json_round_trips()
