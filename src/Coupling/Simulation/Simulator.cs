@@ -274,12 +274,12 @@ public static class Simulator
         var pairs = new List<TruthPair>
         {
             new(Montage.ThetaA, Montage.ThetaB, TruthKind.PhaseCoupled, "theta", o.ThetaLag, both, o.CoupledSnr, o.CoupledSnr,
-                phase, [],
+                all, [],
                 string.Create(inv, $"One 5-7 Hz band-limited noise source; {Montage.ThetaB} is a copy of {Montage.ThetaA} delayed by {o.ThetaLag * 1000:0.#} ms " +
-                $"(phase {2 * Math.PI * 6.0 * o.ThetaLag:0.###} rad at 6 Hz), in both conditions. Envelope measures may respond too, " +
-                $"since the shared source also shares its envelope; that is not asserted.")),
+                $"(phase {2 * Math.PI * 6.0 * o.ThetaLag:0.###} rad at 6 Hz), in both conditions. The shared source also shares its " +
+                $"envelope, and the lag leaves a part orthogonal to the leading channel, so aec and aec-orth find it as well.")),
             new(Montage.BetaA, Montage.BetaB, TruthKind.PhaseCoupled, "beta", o.BetaLag, [o.BetaCondition], o.CoupledSnr, o.CoupledSnr,
-                phase, [],
+                all, [],
                 string.Create(inv, $"One 17-23 Hz band-limited noise source; {Montage.BetaB} is a copy of {Montage.BetaA} delayed by {o.BetaLag * 1000:0.#} ms " +
                 $"(phase {2 * Math.PI * 20.0 * o.BetaLag:0.###} rad at 20 Hz) only in '{o.BetaCondition}' trials. In '{o.OtherCondition}' trials " +
                 $"{Montage.BetaB} carries independent beta activity of the same power, so no measure should find the pair there and band power " +
