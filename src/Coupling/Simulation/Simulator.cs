@@ -103,10 +103,10 @@ public static class Simulator
         spectra.Add(SpectralShaping.RandomSpectrum(Component(13), alphaGain));
         spectra.Add(SpectralShaping.RandomSpectrum(Component(14), slowGain));
         var signals = SpectralShaping.ToSignals(spectra, n);
-        int next0 = channelCount;
-        double[] thetaA = signals[next0], thetaB = signals[next0 + 1];
-        double[] betaA = signals[next0 + 2], betaDelayed = signals[next0 + 3], betaIndependent = signals[next0 + 4];
-        double[] alpha = signals[next0 + 5], slow = signals[next0 + 6];
+        int sourceBase = channelCount;
+        double[] thetaA = signals[sourceBase], thetaB = signals[sourceBase + 1];
+        double[] betaA = signals[sourceBase + 2], betaDelayed = signals[sourceBase + 3], betaIndependent = signals[sourceBase + 4];
+        double[] alpha = signals[sourceBase + 5], slow = signals[sourceBase + 6];
 
         // Background: independent 1/f^alpha noise on every channel.
         var samples = new double[channelCount][];
@@ -169,7 +169,7 @@ public static class Simulator
             $"simulated: ten-electrode montage, cued task with conditions '{options.BetaCondition}' and '{options.OtherCondition}', seed {options.Seed}");
         var recording = new Recording(source, fs, Montage.Channels(), samples, events,
             ["Simulated recording with known ground truth; no real data."]);
-        return new SimulatedScenario(recording, BuildTruth(options, n / fs, BandVariance));
+        return new SimulatedScenario(recording, BuildTruth(options, n / fs));
     }
 
     /// <summary>
@@ -264,7 +264,7 @@ public static class Simulator
         Require(o.EvokedPeakRatio > 0 && double.IsFinite(o.EvokedPeakRatio), nameof(o.EvokedPeakRatio), o.EvokedPeakRatio, "a positive ratio");
     }
 
-    private static GroundTruth BuildTruth(ScenarioOptions o, double duration, Func<string, double> bandVariance)
+    private static GroundTruth BuildTruth(ScenarioOptions o, double duration)
     {
         Measure[] phase = [Measure.Plv, Measure.Ppc, Measure.Pli, Measure.Wpli, Measure.WpliDebiased, Measure.Coherence, Measure.ImagCoherency];
         Measure[] all = [.. phase, Measure.Aec, Measure.AecOrth];
