@@ -56,7 +56,7 @@ public static class CommandLine
         run.SetAction(r => Commands.RunPlan(r.GetValue(planArg)!.FullName, r.GetValue(threads), output, error));
 
         var simOut = new Option<DirectoryInfo>("--output", "-o") { Description = "Folder to write the recording (EDF+), truth.json and a plan into.", DefaultValueFactory = _ => new DirectoryInfo("coupling-scenario") };
-        var simSeed = new Option<ulong>("--seed") { Description = "Seed of the simulation.", DefaultValueFactory = _ => ScenarioFiles.DefaultSeed };
+        var simSeed = new Option<int>("--seed") { Description = "Seed of the simulation.", DefaultValueFactory = _ => ScenarioFiles.DefaultSeed };
         var simTrials = new Option<int?>("--trials") { Description = "Trials per condition (default: the scenario's)." };
         var simulate = new Command("simulate", "Write the invented scenario with known ground truth as an EDF+ recording with events, truth.json and a ready plan.")
         {
