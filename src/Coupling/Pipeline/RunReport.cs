@@ -69,7 +69,7 @@ public static class RunReport
             var r = analysis.Results[i];
             var g = graphs[i];
             var top = g.Edges.OrderByDescending(e => double.IsNaN(e.Z) ? double.NegativeInfinity : Math.Abs(e.Z)).Take(3)
-                .Select(e => string.Create(inv, $"{e.A}-{e.B} ({e.Value:0.###}, {e.Z:0.#})"));
+                .Select(e => string.Create(inv, $"{r.Channels[e.A]}-{r.Channels[e.B]} ({e.Value:0.###}, {e.Z:0.#})"));
             sb.AppendLine(string.Create(inv,
                 $"| {r.Condition} | {r.Band} | {r.Measure} | {g.EdgeCount} / {r.Value.Length} | {g.Density:0.###} | {string.Join("; ", top)} |"));
         }
