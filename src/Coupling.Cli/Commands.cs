@@ -84,6 +84,7 @@ internal static class Commands
         output.WriteLine($"  figures:  {Path.Combine(outcome.OutputFolder, "figures")}");
         foreach (var c in outcome.Conditions)
             output.WriteLine($"  {c.Condition}: {c.Trials} trials{(c.Dropped.Count > 0 ? $", {c.Dropped.Count} dropped (listed in the manifest)" : "")}");
+        foreach (var w in outcome.Warnings) output.WriteLine($"  warning: {w}");
         output.WriteLine($"  {outcome.Results.Sum(r => r.Significant.Count(s => s))} significant pairs in {outcome.Results.Count} tables; {outcome.Elapsed.TotalSeconds:0.0} s");
     }
 }

@@ -9,9 +9,11 @@ namespace Coupling.Pipeline;
 /// <param name="Decompositions">What each band's decomposition actually used.</param>
 /// <param name="TimeSteps">Time step (samples) used per band, in band order.</param>
 /// <param name="PadSamples">Padding samples at each end of every trial.</param>
+/// <param name="Warnings">Things the reader of the results must know (e.g. too few surrogates for any discovery).</param>
 public sealed record Analysis(
     IReadOnlyList<PairResult> Results,
     IReadOnlyList<ConditionSummary> Conditions,
     IReadOnlyList<DecompositionInfo> Decompositions,
     IReadOnlyList<int> TimeSteps,
-    int PadSamples);
+    int PadSamples,
+    IReadOnlyList<string> Warnings);

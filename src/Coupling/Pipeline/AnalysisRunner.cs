@@ -32,7 +32,7 @@ public static class AnalysisRunner
 
         progress?.Report(new RunProgress("writing results", 0, 0));
         var written = ResultsWriter.Write(plan, input, analysis, new RunContext(started, clock.Elapsed, commandLine, workers), progress);
-        return new RunOutcome(written, analysis.Results, analysis.Conditions, clock.Elapsed);
+        return new RunOutcome(written, analysis.Results, analysis.Conditions, analysis.Warnings, clock.Elapsed);
     }
 
     /// <summary>Everything computed by a run, before it is written.</summary>
@@ -55,6 +55,16 @@ public static class AnalysisRunner
             var trials = input.Trials(condition, plan.Trial, pad);
             SurrogateTest.CheckFeasible(trials.TrialCount, plan.Surrogates, condition.Name);
             trialSets.Add(trials);
+        }
+
+        var warnings = new List<string>();
+        int pairs = Measures.PairIndex.Count(input.Channels.Count);
+        int needed = (int)Math.Ceiling(pairs / plan.Q) - 1;
+        if (plan.Surrogates < needed)
+        {
+            int k = (int)Math.Ceiling(pairs / (plan.Q * (plan.Surrogates + 1)));
+            warnings.Add($"With {plan.Surrogates} surrogates the smallest attainable p is 1/{plan.Surrogates + 1}; across {pairs} pairs at q = {plan.Q:G3} " +
+                $"a pair can pass the correction only if at least {k} pairs reach that p. Use at least {needed} surrogates for a single coupled pair to be detectable.");
         }
 
         var results = new List<PairResult>();
@@ -83,6 +93,6 @@ public static class AnalysisRunner
             }
             ci++;
         }
-        return new Analysis(results, summaries, decompositions.Select(d => d.Info).ToArray(), steps, pad);
+        return new Analysis(results, summaries, decompositions.Select(d => d.Info).ToArray(), steps, pad, warnings);
     }
 }

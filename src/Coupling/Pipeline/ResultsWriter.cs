@@ -84,6 +84,7 @@ public static class ResultsWriter
                 ["threads"] = context.Threads,
                 ["analysis_seconds"] = context.Elapsed.TotalSeconds,
                 ["input_notes"] = new JsonArray(input.Notes.Select(n => (JsonNode)JsonValue.Create(n)!).ToArray()),
+                ["warnings"] = new JsonArray(analysis.Warnings.Select(n => (JsonNode)JsonValue.Create(n)!).ToArray()),
             },
         };
         ManifestWriter.Write(manifest, folder.PathOf("manifest.json"));

@@ -6,5 +6,6 @@ namespace Coupling.Pipeline;
 /// <param name="OutputFolder">The results folder.</param>
 /// <param name="Results">The tested tables.</param>
 /// <param name="Conditions">Trial counts per condition.</param>
+/// <param name="Warnings">Warnings about the analysis, also in the report.</param>
 /// <param name="Elapsed">Wall-clock time of the run.</param>
-public sealed record RunOutcome(string OutputFolder, IReadOnlyList<PairResult> Results, IReadOnlyList<ConditionSummary> Conditions, TimeSpan Elapsed);
+public sealed record RunOutcome(string OutputFolder, IReadOnlyList<PairResult> Results, IReadOnlyList<ConditionSummary> Conditions, IReadOnlyList<string> Warnings, TimeSpan Elapsed);

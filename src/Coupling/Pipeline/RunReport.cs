@@ -25,6 +25,7 @@ public static class RunReport
         sb.AppendLine();
         sb.AppendLine($"> {ResearchUseNotice}");
         sb.AppendLine();
+        foreach (var w in analysis.Warnings) sb.AppendLine($"> **Warning.** {w}").AppendLine();
         sb.AppendLine("## Input");
         sb.AppendLine();
         sb.AppendLine($"- Recording: `{Path.GetFileName(input.Source)}`, {input.Channels.Count} channels at {input.SampleRate.ToString("G6", inv)} Hz");
