@@ -30,6 +30,16 @@ public static class CommandLine
             error.WriteLine($"coupling: {OneLine(e.Message)}");
             return 3;
         }
+        catch (OperationCanceledException)
+        {
+            error.WriteLine("coupling: stopped before the end; nothing was written.");
+            return 130;
+        }
+        catch (Exception e)
+        {
+            error.WriteLine($"coupling: internal error ({e.GetType().Name}): {OneLine(e.Message)}");
+            return 1;
+        }
     }
 
     private static string OneLine(string s) => s.ReplaceLineEndings(" ");
