@@ -1,6 +1,4 @@
-using System.Collections.Concurrent;
 using System.Numerics;
-using MathNet.Numerics.IntegralTransforms;
 
 namespace Coupling.Spectral;
 
@@ -23,13 +21,14 @@ namespace Coupling.Spectral;
 /// </remarks>
 public sealed class FirHilbertDecomposition : IBandDecomposition
 {
-    private readonly ConcurrentDictionary<int, Complex[]> _kernels = new();
+    private readonly CentredConvolution _convolution;
 
     /// <summary>Uses a designed filter.</summary>
     /// <param name="filter">The band-pass filter.</param>
     public FirHilbertDecomposition(FirFilter filter)
     {
         Filter = filter;
+        _convolution = new CentredConvolution(filter.Taps.Select(t => new Complex(t, 0)).ToArray(), filter.DelaySamples, k => Analytic.ApplyMask(k));
         Info = new DecompositionInfo("fir-hilbert", filter.Band.Name, new Dictionary<string, double>
         {
             ["pass_low_hz"] = filter.PassLowHz,
@@ -64,28 +63,5 @@ public sealed class FirHilbertDecomposition : IBandDecomposition
     public DecompositionInfo Info { get; }
 
     /// <inheritdoc/>
-    public void Apply(ReadOnlySpan<double> input, Span<Complex> output)
-    {
-        if (input.Length != output.Length)
-            throw new ArgumentException($"Output length {output.Length} differs from input length {input.Length}.", nameof(output));
-        int n = input.Length;
-        if (n == 0) return;
-        int size = SpectralChecks.PowerOfTwoAtLeast(n + Filter.Length - 1);
-        Complex[] kernel = _kernels.GetOrAdd(size, Kernel);
-        var buffer = new Complex[size];
-        for (int i = 0; i < n; i++) buffer[i] = input[i];
-        Fourier.Forward(buffer, FourierOptions.Matlab);
-        for (int k = 0; k < size; k++) buffer[k] *= kernel[k];
-        Fourier.Inverse(buffer, FourierOptions.Matlab);
-        buffer.AsSpan(Filter.DelaySamples, n).CopyTo(output);
-    }
-
-    private Complex[] Kernel(int size)
-    {
-        var kernel = new Complex[size];
-        for (int k = 0; k < Filter.Length; k++) kernel[k] = Filter.Taps[k];
-        Fourier.Forward(kernel, FourierOptions.Matlab);
-        Analytic.ApplyMask(kernel);
-        return kernel;
-    }
+    public void Apply(ReadOnlySpan<double> input, Span<Complex> output) => _convolution.Apply(input, output);
 }

@@ -1,6 +1,4 @@
-using System.Collections.Concurrent;
 using System.Numerics;
-using MathNet.Numerics.IntegralTransforms;
 
 namespace Coupling.Spectral;
 
@@ -20,7 +18,7 @@ namespace Coupling.Spectral;
 /// </remarks>
 public sealed class MorletDecomposition : IBandDecomposition
 {
-    private readonly ConcurrentDictionary<int, Complex[]> _kernels = new();
+    private readonly CentredConvolution _convolution;
 
     /// <summary>Uses a built wavelet for a band.</summary>
     /// <param name="band">The band the wavelet stands for.</param>
@@ -29,6 +27,7 @@ public sealed class MorletDecomposition : IBandDecomposition
     {
         Band = band;
         Wavelet = wavelet;
+        _convolution = new CentredConvolution(wavelet.Samples.ToArray(), wavelet.HalfLength);
         Info = new DecompositionInfo("morlet", band.Name, new Dictionary<string, double>
         {
             ["centre_hz"] = wavelet.CentreHz,
@@ -72,28 +71,5 @@ public sealed class MorletDecomposition : IBandDecomposition
     public DecompositionInfo Info { get; }
 
     /// <inheritdoc/>
-    public void Apply(ReadOnlySpan<double> input, Span<Complex> output)
-    {
-        if (input.Length != output.Length)
-            throw new ArgumentException($"Output length {output.Length} differs from input length {input.Length}.", nameof(output));
-        int n = input.Length;
-        if (n == 0) return;
-        int size = SpectralChecks.PowerOfTwoAtLeast(n + Wavelet.Length - 1);
-        Complex[] kernel = _kernels.GetOrAdd(size, Kernel);
-        var buffer = new Complex[size];
-        for (int i = 0; i < n; i++) buffer[i] = input[i];
-        Fourier.Forward(buffer, FourierOptions.Matlab);
-        for (int k = 0; k < size; k++) buffer[k] *= kernel[k];
-        Fourier.Inverse(buffer, FourierOptions.Matlab);
-        // Linear convolution index i + K holds the centred output at i.
-        buffer.AsSpan(Wavelet.HalfLength, n).CopyTo(output);
-    }
-
-    private Complex[] Kernel(int size)
-    {
-        var kernel = new Complex[size];
-        for (int k = 0; k < Wavelet.Length; k++) kernel[k] = Wavelet.Samples[k];
-        Fourier.Forward(kernel, FourierOptions.Matlab);
-        return kernel;
-    }
+    public void Apply(ReadOnlySpan<double> input, Span<Complex> output) => _convolution.Apply(input, output);
 }
