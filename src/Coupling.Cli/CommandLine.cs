@@ -1,4 +1,5 @@
 using System.CommandLine;
+using System.CommandLine.Help;
 using Coupling.Pipeline;
 
 namespace Coupling.Cli;
@@ -10,7 +11,13 @@ public static class CommandLine
     public static int Run(string[] args, TextWriter output, TextWriter error)
     {
         var root = Build(output, error);
-        var parsed = root.Parse(args);
+        var parsed = root.Parse(args.Length == 0 ? ["--help"] : args);
+        if (parsed.Errors.Count > 0)
+        {
+            string command = parsed.CommandResult.Command == root ? "coupling" : $"coupling {parsed.CommandResult.Command.Name}";
+            error.WriteLine($"coupling: {string.Join(" ", parsed.Errors.Select(e => OneLine(e.Message)))} (see '{command} --help')");
+            return 2;
+        }
         try
         {
             return parsed.Invoke(new InvocationConfiguration { Output = output, Error = error, EnableDefaultExceptionHandler = false });
@@ -45,9 +52,10 @@ public static class CommandLine
     private static string OneLine(string s) => s.ReplaceLineEndings(" ");
 
     /// <summary>Builds the command tree (exposed so the help text can be pinned by a test).</summary>
-    public static RootCommand Build(TextWriter output, TextWriter error)
+    public static Command Build(TextWriter output, TextWriter error)
     {
-        var root = new RootCommand(
+        // A named root rather than RootCommand, so help shows the tool's name whatever the executable is called.
+        var root = new Command("coupling",
             "Coupling: narrowband connectivity between channels of trial-based electrophysiology recordings, " +
             "tested against trial-shuffle surrogates. For research use only; not a medical device.");
 
@@ -79,6 +87,8 @@ public static class CommandLine
         var inspect = new Command("inspect", "Print a recording's channels, sampling rates, duration and event counts per label.") { fileArg, rate };
         inspect.SetAction(r => Commands.Inspect(r.GetValue(fileArg)!.FullName, r.GetValue(rate), output));
 
+        root.Options.Add(new HelpOption());
+        root.Options.Add(new VersionOption());
         root.Subcommands.Add(demo);
         root.Subcommands.Add(run);
         root.Subcommands.Add(simulate);
