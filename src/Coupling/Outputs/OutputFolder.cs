@@ -98,6 +98,8 @@ public sealed class OutputFolder : IDisposable
 
     /// <summary>
     /// Deletes hidden temporary and set-aside siblings of <paramref name="targetPath"/> left by killed runs.
+    /// A set-aside older folder is put back instead when the target itself is missing (a run killed between setting
+    /// the old results aside and renaming the new ones in), so earlier results are never lost.
     /// Not to be called while another run is writing to the same target.
     /// </summary>
     /// <returns>The number of folders removed.</returns>
@@ -108,6 +110,11 @@ public sealed class OutputFolder : IDisposable
         if (parent is null || !Directory.Exists(parent)) return 0;
         string name = Path.GetFileName(full);
         int removed = 0;
+        if (!Directory.Exists(full) && !File.Exists(full))
+        {
+            string? aside = Directory.EnumerateDirectories(parent, $".{name}.old-*").OrderBy(d => Directory.GetLastWriteTimeUtc(d)).LastOrDefault();
+            if (aside is not null) Directory.Move(aside, full);
+        }
         foreach (string pattern in new[] { $".{name}.tmp-*", $".{name}.old-*" })
             foreach (string dir in Directory.EnumerateDirectories(parent, pattern))
                 if (TryDelete(dir)) removed++;

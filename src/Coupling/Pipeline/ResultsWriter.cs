@@ -26,6 +26,7 @@ public static class ResultsWriter
     /// <summary>Writes everything; returns the results folder's path.</summary>
     public static string Write(Plan plan, LoadedInput input, Analysis analysis, RunContext context, IProgress<RunProgress>? progress)
     {
+        OutputFolder.RemoveLeftovers(plan.Output);
         using var folder = OutputFolder.Begin(plan.Output);
         var written = new List<string>();
         string Rel(string path) => Path.GetRelativePath(folder.WorkingPath, path).Replace('\\', '/');

@@ -114,4 +114,16 @@ public class OutputFolderTests
         Assert.Equal(2, OutputFolder.RemoveLeftovers(dir["results"]));
         Assert.Equal([".other.tmp-0123456789ab", "results"], dir.Entries());
     }
+
+    [Fact]
+    public void Old_results_set_aside_by_a_run_killed_before_its_rename_are_put_back()
+    {
+        using var dir = new TempFolder();
+        Directory.CreateDirectory(dir[".results.tmp-0123456789ab"]);
+        Directory.CreateDirectory(dir[".results.old-0123456789ab"]);
+        File.WriteAllText(Path.Combine(dir[".results.old-0123456789ab"], "edges.tsv"), "earlier");
+        OutputFolder.RemoveLeftovers(dir["results"]);
+        Assert.Equal(["results"], dir.Entries());
+        Assert.Equal("earlier", File.ReadAllText(Path.Combine(dir["results"], "edges.tsv")));
+    }
 }
