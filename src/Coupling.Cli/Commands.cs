@@ -72,8 +72,15 @@ internal static class Commands
     private static RunOutcome Execute(Plan plan, int threads, string commandLine, TextWriter error)
     {
         var progress = new TerminalProgress(error, ReferenceEquals(error, Console.Error) && !Console.IsErrorRedirected);
-        try { return AnalysisRunner.Run(plan, progress, threads, commandLine); }
-        finally { progress.End(); }
+        using var stop = new CancellationTokenSource();
+        ConsoleCancelEventHandler onCancel = (_, e) => { e.Cancel = true; stop.Cancel(); };
+        Console.CancelKeyPress += onCancel;
+        try { return AnalysisRunner.Run(plan, progress, threads, commandLine, stop.Token); }
+        finally
+        {
+            Console.CancelKeyPress -= onCancel;
+            progress.End();
+        }
     }
 
     private static void PrintOutcome(RunOutcome outcome, TextWriter output)

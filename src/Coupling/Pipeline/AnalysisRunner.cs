@@ -20,7 +20,9 @@ public static class AnalysisRunner
     /// <param name="progress">Receives progress; may be null.</param>
     /// <param name="threads">Worker threads, overriding the plan's when above 0.</param>
     /// <param name="commandLine">The command line that started the run, for the manifest.</param>
-    public static RunOutcome Run(Plan plan, IProgress<RunProgress>? progress = null, int threads = 0, string? commandLine = null)
+    /// <param name="cancellationToken">Stops the run (with <see cref="OperationCanceledException"/>) before anything is committed.</param>
+    public static RunOutcome Run(Plan plan, IProgress<RunProgress>? progress = null, int threads = 0, string? commandLine = null,
+        CancellationToken cancellationToken = default)
     {
         var started = DateTimeOffset.UtcNow;
         var clock = Stopwatch.StartNew();
@@ -28,7 +30,8 @@ public static class AnalysisRunner
 
         progress?.Report(new RunProgress("reading input", 0, 0));
         var input = InputLoader.Load(plan);
-        var analysis = Analyse(plan, input, progress, workers);
+        var analysis = Analyse(plan, input, progress, workers, cancellationToken);
+        cancellationToken.ThrowIfCancellationRequested();
 
         progress?.Report(new RunProgress("writing results", 0, 0));
         var written = ResultsWriter.Write(plan, input, analysis, new RunContext(started, clock.Elapsed, commandLine, workers), progress);
@@ -36,7 +39,8 @@ public static class AnalysisRunner
     }
 
     /// <summary>Everything computed by a run, before it is written.</summary>
-    public static Analysis Analyse(Plan plan, LoadedInput input, IProgress<RunProgress>? progress, int workers)
+    public static Analysis Analyse(Plan plan, LoadedInput input, IProgress<RunProgress>? progress, int workers,
+        CancellationToken cancellationToken = default)
     {
         var decompositions = plan.Bands
             .Select(b => BandDecompositions.Create(plan.Decomposition.Method, b, input.SampleRate,
@@ -82,7 +86,7 @@ public static class AnalysisRunner
                 var stageProgress = progress is null ? null
                     : new Progress<int>(done => progress.Report(new RunProgress($"{stage}: surrogates", done, plan.Surrogates)));
                 var tested = SurrogateTest.Run(narrowband, plan.Measures, plan.Surrogates, Seeds.For(plan.Seed, ci, bi), trials.Condition,
-                    workers > 0 ? workers : null, stageProgress);
+                    workers > 0 ? workers : null, stageProgress, cancellationToken);
                 foreach (var m in tested)
                 {
                     var corrected = FalseDiscoveryRate.BenjaminiHochberg(m.P);
