@@ -6,11 +6,21 @@ namespace Coupling.Cli;
 /// <summary>The command-line front end: parses arguments, calls the library, prints through the given writers.</summary>
 public static class CommandLine
 {
-    /// <summary>Runs the program with <paramref name="args"/>; returns the process exit code (0 on success).</summary>
+    /// <summary>
+    /// Runs the program with <paramref name="args"/>; returns the process exit code: 0 on success, 2 for a usage error
+    /// or input the program cannot use, 3 when a file cannot be read or written.
+    /// </summary>
     public static int Run(string[] args, TextWriter output, TextWriter error)
     {
         var root = Build(output, error);
         var parsed = root.Parse(args);
+        if (parsed.Errors.Count > 0)
+        {
+            // A usage error is bad input like any other: exit code 2, said on stderr, with where to look.
+            foreach (var e in parsed.Errors) error.WriteLine($"coupling: {OneLine(e.Message)}");
+            error.WriteLine("coupling: see --help for the commands and their options.");
+            return 2;
+        }
         try
         {
             return parsed.Invoke(new InvocationConfiguration { Output = output, Error = error, EnableDefaultExceptionHandler = false });
