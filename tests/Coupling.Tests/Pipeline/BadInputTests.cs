@@ -90,7 +90,7 @@ public sealed class BadInputTests(SmallScenario scenario) : IClassFixture<SmallS
 
     [Fact]
     public void A_band_above_the_nyquist_frequency_is_refused() =>
-        Refused(Small(plan: SmallStudy.PlanText(bands: "{ alpha: [8, 12], high: [90, 110] }")), "'high'", "Nyquist frequency 100 Hz");
+        Refused(Small(plan: SmallStudy.PlanText(bands: "{ alpha: [8, 12], high: [90, 110] }")), "plan.yaml: bands.high:", "Nyquist frequency 100 Hz");
 
     [Fact]
     public void A_trial_span_longer_than_the_recording_is_refused() =>
@@ -102,7 +102,7 @@ public sealed class BadInputTests(SmallScenario scenario) : IClassFixture<SmallS
         var output = new StringWriter();
         Assert.Equal(0, CommandLine.Run(["simulate", "--trials", "4", "--output", _folder["sim"]], output, new StringWriter()));
         // 4 trials allow 4! = 24 orders, fewer than the plan's 1000 surrogates.
-        Refused(Path.Combine(_folder["sim"], "plan.yaml"), "condition 'tone' has 4 trials", "at most 24 distinct trial orders", "1000 surrogates");
+        Refused(Path.Combine(_folder["sim"], "plan.yaml"), "plan.yaml: surrogates:", "condition 'tone' has 4 trials", "at most 24 distinct trial orders", "1000 surrogates");
         Assert.False(Directory.Exists(Path.Combine(_folder["sim"], "results")));
         Assert.DoesNotContain(Directory.EnumerateFileSystemEntries(_folder["sim"]), e => Path.GetFileName(e).StartsWith('.'));
     }
