@@ -17,8 +17,9 @@ internal static class SmallStudy
     /// <summary>Writes the recording; <paramref name="edit"/> may change cells (channel, sample) before writing.</summary>
     public static void WriteRecording(string folder, int trials = 20, int seed = 11, Func<int, int, double, double>? edit = null)
     {
-        // One trial every 1.5 s after a 1 s lead, span -0.25..0.75 s: 1 s + 1.5 s per trial + 1 s tail.
-        int samples = (int)((2 + 1.5 * trials) * Rate);
+        // One trial every 1.5 s from 3 s on, span -0.25..0.75 s: the first onset is 3 s in, the last 3.5 s before the end,
+        // room for the padding of an 8-12 Hz band-pass (about 2 s at each end) without reflection.
+        int samples = (int)((5 + 1.5 * trials) * Rate);
         var rng = new Random(seed);
         double Gauss() => Math.Sqrt(-2 * Math.Log(1 - rng.NextDouble())) * Math.Cos(2 * Math.PI * rng.NextDouble());
         var csv = new StringBuilder(string.Join(",", Channels)).Append('\n');
@@ -39,7 +40,7 @@ internal static class SmallStudy
         File.WriteAllText(Path.Combine(folder, "rec.csv"), csv.ToString());
         var events = new StringBuilder("onset\tduration\ttrial_type\n");
         for (int n = 0; n < trials; n++)
-            events.Append(string.Create(CultureInfo.InvariantCulture, $"{1.5 + 1.5 * n:R}\t0\tgo\n"));
+            events.Append(string.Create(CultureInfo.InvariantCulture, $"{3 + 1.5 * n:R}\t0\tgo\n"));
         File.WriteAllText(Path.Combine(folder, "rec_events.tsv"), events.ToString());
     }
 
