@@ -7,7 +7,10 @@ namespace Coupling.Cli;
 /// <summary>The command-line front end: parses arguments, calls the library, prints through the given writers.</summary>
 public static class CommandLine
 {
-    /// <summary>Runs the program with <paramref name="args"/>; returns the process exit code (0 on success).</summary>
+    /// <summary>
+    /// Runs the program with <paramref name="args"/>; returns the process exit code: 0 on success, 2 for a usage error
+    /// or input the program cannot use, 3 when a file cannot be read or written.
+    /// </summary>
     public static int Run(string[] args, TextWriter output, TextWriter error)
     {
         var root = Build(output, error);

@@ -43,8 +43,8 @@ public static class AnalysisRunner
         CancellationToken cancellationToken = default)
     {
         var decompositions = plan.Bands
-            .Select(b => BandDecompositions.Create(plan.Decomposition.Method, b, input.SampleRate,
-                new BandDecompositionOptions(plan.Decomposition.TransitionHz, plan.Decomposition.AttenuationDb, plan.Decomposition.Cycles)))
+            .Select(b => InPlan(plan, $"bands.{b.Name}", () => BandDecompositions.Create(plan.Decomposition.Method, b, input.SampleRate,
+                new BandDecompositionOptions(plan.Decomposition.TransitionHz, plan.Decomposition.AttenuationDb, plan.Decomposition.Cycles))))
             .ToArray();
         var steps = decompositions.Select(d => plan.Decomposition.TimeStep ?? TimeStep.Default(d.Info, input.SampleRate)).ToArray();
         int pad = decompositions.Max(d => d.PadSamples);
@@ -57,7 +57,7 @@ public static class AnalysisRunner
                 if (!input.EventLabels.Contains(label))
                     throw new InputException($"{plan.Source}: conditions.{condition.Name}: event label '{label}' does not occur in {input.Source}; labels there: {string.Join(", ", input.EventLabels.Distinct().Order(StringComparer.Ordinal))}.");
             var trials = input.Trials(condition, plan.Trial, pad);
-            SurrogateTest.CheckFeasible(trials.TrialCount, plan.Surrogates, condition.Name);
+            InPlan(plan, "surrogates", () => { SurrogateTest.CheckFeasible(trials.TrialCount, plan.Surrogates, condition.Name); return 0; });
             trialSets.Add(trials);
         }
 
@@ -98,5 +98,12 @@ public static class AnalysisRunner
             ci++;
         }
         return new Analysis(results, summaries, decompositions.Select(d => d.Info).ToArray(), steps, pad, warnings);
+    }
+
+    /// <summary>Runs a check whose message names no file, prefixing its InputException with the plan and the key it concerns.</summary>
+    private static T InPlan<T>(Plan plan, string key, Func<T> check)
+    {
+        try { return check(); }
+        catch (InputException e) { throw new InputException($"{plan.Source}: {key}: {e.Message}", e); }
     }
 }

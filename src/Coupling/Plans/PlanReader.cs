@@ -31,11 +31,18 @@ public static class PlanReader
     /// <summary>Parses plan text; <paramref name="source"/> names it in errors and anchors relative paths.</summary>
     public static Plan Parse(TextReader text, string source)
     {
+        string all = text.ReadToEnd();
         var stream = new YamlStream();
-        try { stream.Load(text); }
+        try { stream.Load(new StringReader(all)); }
         catch (YamlException e)
         {
             throw new InputException($"{source}, line {e.Start.Line}: not valid YAML ({e.Message}).", e);
+        }
+        catch (InvalidOperationException e)
+        {
+            // YamlDotNet's scanner gives up this way when the text ends inside an open flow collection or quote.
+            int last = all.TrimEnd().Split('\n').Length;
+            throw new InputException($"{source}, line {last}: not valid YAML (the text ends inside an unclosed '[', '{{' or quote).", e);
         }
         if (stream.Documents.Count == 0 || stream.Documents[0].RootNode is not YamlMappingNode root)
             throw new InputException($"{source}: the plan must be a YAML mapping of keys to values (e.g. 'recording: data.edf').");
