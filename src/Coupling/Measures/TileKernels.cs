@@ -21,13 +21,14 @@ internal static class TileKernels
     public const int ComplexRows = 4, ComplexColumns = 8;
     public const int LagRows = 2, LagColumns = 8;
     public const int DotRows = 4, DotColumns = 8;
-    public const int OrthogonalRows = 2, OrthogonalColumns = 4;
+    public const int OrthogonalRows = 4, OrthogonalColumns = 4;
 
     /// <summary>
     /// One 4 x 8 tile of S_ab = Σ_n x_a,n · conj(y_b,π(n)) at one time point: for rows a0..a0+3 and columns b0..b0+7,
     /// writes Re S into <paramref name="sums"/>[0..7], Σ Im x·Re y into [8..15] and Σ Re x·Im y into [16..23]
     /// (row-major, two vectors per row). Im S is the difference of the last two: see the type's remarks.
     /// </summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public static void ComplexTile(ref double re, ref double im, long timeBase, int stride, ReadOnlySpan<int> permutation,
         int a0, int b0, ref Vectors24 sums)
     {
@@ -103,6 +104,7 @@ internal static class TileKernels
     /// formed from two separately rounded products: Σ Im X_n into <paramref name="sums"/>[0..3], Σ |Im X_n| into
     /// [4..7], Σ (Im X_n)² into [8..11] and Σ sign(Im X_n) into [12..15] (row-major, two vectors per row).
     /// </summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public static void LagTile(ref double re, ref double im, long timeBase, int stride, ReadOnlySpan<int> permutation,
         int a0, int b0, ref Vectors16 sums)
     {
@@ -158,6 +160,7 @@ internal static class TileKernels
     /// <paramref name="xBase"/>, w from those starting at <paramref name="yBase"/>, consecutive rows
     /// <paramref name="stride"/> apart; results row-major into <paramref name="sums"/>[0..7].
     /// </summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public static void DotTile(ref double u, nint xBase, nint yBase, int stride, int times, ref Vectors24 sums)
     {
         Vector256<double> s00 = default;
@@ -197,15 +200,18 @@ internal static class TileKernels
     }
 
     /// <summary>
-    /// One 2 x 4 tile of the orthogonalised-envelope sums of one trial pair over <paramref name="times"/> rows:
+    /// One 4 x 4 tile of the orthogonalised-envelope sums of one trial pair over <paramref name="times"/> rows:
     /// with q = |Im z_b · Re z_a − Re z_b · Im z_a| (two separately rounded products), y = q/|z_a| and x = q/|z_b|, writes
     /// per row Σy, Σy², Σy·u_a, Σx, Σx², Σx·u_b into <paramref name="sums"/>[6r..6r+5].
     /// </summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public static void OrthogonalTile(ref double re, ref double im, ref double inverse, ref double u, nint xBase, nint yBase,
         int stride, int times, ref Vectors24 sums)
     {
         Vector256<double> sy0 = default, syy0 = default, syu0 = default, sx0 = default, sxx0 = default, sxu0 = default;
         Vector256<double> sy1 = default, syy1 = default, syu1 = default, sx1 = default, sxx1 = default, sxu1 = default;
+        Vector256<double> sy2 = default, syy2 = default, syu2 = default, sx2 = default, sxx2 = default, sxu2 = default;
+        Vector256<double> sy3 = default, syy3 = default, syu3 = default, sx3 = default, sxx3 = default, sxu3 = default;
         nint x = xBase, y = yBase;
         for (int t = 0; t < times; t++, x += stride, y += stride)
         {
@@ -235,9 +241,33 @@ internal static class TileKernels
             sx1 += x1;
             sxx1 = Vector256.FusedMultiplyAdd(x1, x1, sxx1);
             sxu1 = Vector256.FusedMultiplyAdd(x1, bu, sxu1);
+            var ar2 = Vector256.Create(Unsafe.Add(ref re, x + 2));
+            var ai2 = Vector256.Create(Unsafe.Add(ref im, x + 2));
+            var q2 = Vector256.Abs(bi * ar2 - br * ai2);
+            var y2 = q2 * Vector256.Create(Unsafe.Add(ref inverse, x + 2));
+            var x2 = q2 * bv;
+            sy2 += y2;
+            syy2 = Vector256.FusedMultiplyAdd(y2, y2, syy2);
+            syu2 = Vector256.FusedMultiplyAdd(y2, Vector256.Create(Unsafe.Add(ref u, x + 2)), syu2);
+            sx2 += x2;
+            sxx2 = Vector256.FusedMultiplyAdd(x2, x2, sxx2);
+            sxu2 = Vector256.FusedMultiplyAdd(x2, bu, sxu2);
+            var ar3 = Vector256.Create(Unsafe.Add(ref re, x + 3));
+            var ai3 = Vector256.Create(Unsafe.Add(ref im, x + 3));
+            var q3 = Vector256.Abs(bi * ar3 - br * ai3);
+            var y3 = q3 * Vector256.Create(Unsafe.Add(ref inverse, x + 3));
+            var x3 = q3 * bv;
+            sy3 += y3;
+            syy3 = Vector256.FusedMultiplyAdd(y3, y3, syy3);
+            syu3 = Vector256.FusedMultiplyAdd(y3, Vector256.Create(Unsafe.Add(ref u, x + 3)), syu3);
+            sx3 += x3;
+            sxx3 = Vector256.FusedMultiplyAdd(x3, x3, sxx3);
+            sxu3 = Vector256.FusedMultiplyAdd(x3, bu, sxu3);
         }
         sums[0] = sy0; sums[1] = syy0; sums[2] = syu0; sums[3] = sx0; sums[4] = sxx0; sums[5] = sxu0;
         sums[6] = sy1; sums[7] = syy1; sums[8] = syu1; sums[9] = sx1; sums[10] = sxx1; sums[11] = sxu1;
+        sums[12] = sy2; sums[13] = syy2; sums[14] = syu2; sums[15] = sx2; sums[16] = sxx2; sums[17] = sxu2;
+        sums[18] = sy3; sums[19] = syy3; sums[20] = syu3; sums[21] = sx3; sums[22] = sxx3; sums[23] = sxu3;
     }
 }
 
