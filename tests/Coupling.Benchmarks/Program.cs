@@ -2,7 +2,14 @@ using BenchmarkDotNet.Running;
 using Coupling.Benchmarks;
 
 // Entry point: "w1 [--channels N] [--trials N] [--draws N] [--conditions N] [--threads N] [--step K]" times the
-// reference workload end to end; "kernels [...]" times each kernel group; anything else goes to BenchmarkDotNet.
+// reference workload end to end; "kernels [...]" times each kernel group; "precision PLAN [--draws N]" compares
+// single-precision storage with double; anything else goes to BenchmarkDotNet.
+if (args.Length > 1 && args[0] == "precision")
+{
+    int i = Array.IndexOf(args, "--draws");
+    Precision.Run(args[1], i > 0 ? int.Parse(args[i + 1], System.Globalization.CultureInfo.InvariantCulture) : 1000, Console.Out);
+    return 0;
+}
 if (args.Length > 0 && (args[0] == "w1" || args[0] == "kernels"))
 {
     int Option(string name, int fallback)
