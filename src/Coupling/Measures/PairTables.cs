@@ -10,8 +10,8 @@ namespace Coupling.Measures;
 /// </summary>
 /// <remarks>
 /// Layouts: the per-time-point tables are [time point][trial][channel]; the envelope tables are
-/// [trial][time point][channel]. Memory: 2 doubles per value of the set for each of the raw, unit-phasor and
-/// orthogonalisation tables and 1 for each of the envelope ones, only for the measures asked.
+/// [trial][time point][channel]. Memory per value of the set, only for the measures asked: 2 doubles for the raw
+/// table, 2 for the unit phasors, 1 for the envelope deviation and 3 for AEC-orth (re, im, 1/|z|).
 /// </remarks>
 internal sealed class PairTables
 {
