@@ -1,3 +1,5 @@
+using System.Runtime.CompilerServices;
+using System.Runtime.Intrinsics;
 using Coupling.Spectral;
 
 namespace Coupling.Measures;
@@ -38,12 +40,19 @@ namespace Coupling.Measures;
 /// and AEC-orth is 0; otherwise it is rounding noise and the value carries no meaning. Hipp, Hawellek, Corbetta,
 /// Siegel, Engel (2012), Nat Neurosci 15:884-890.</item>
 /// </list>
-/// <para>Computation. Per time point the channels x trials block is copied once into split real/imaginary rows (raw
-/// and unit-phasor, and the same with the trials of every row permuted); each pair is then a tight loop over two
-/// contiguous rows, i.e. the upper triangle of the Hermitian product of the (channels x trials) block with the
-/// conjugate transpose of its permuted copy. Because the second factor is permuted the product is not Hermitian, so
-/// S_ab is formed for a &lt; b with b permuted. One loop over the raw rows feeds coherence, imaginary coherency, PLI,
-/// wPLI and debiased wPLI². Envelope rows are built once per set (see <see cref="PairwiseWorkspace"/>). Non-finite
+/// <para>Computation. The set is re-laid once (see <see cref="PairTables"/>, shared by all workspaces of the set) into
+/// channel-contiguous rows: per time point and trial the real and imaginary parts (raw and unit-phasor) of all
+/// channels, per trial and time point the envelope deviations. For one time point the cross sums of all pairs are the
+/// upper triangle of the complex matrix product of the (channels x trials) block with the conjugate transpose of its
+/// trial-permuted copy; because the second factor is permuted the product is not Hermitian, so S_ab is formed for
+/// a &lt; b with b permuted. It is computed as a real, register-tiled product over split real/imaginary rows (tiles of
+/// 4 x 8 pairs, vectors of four doubles, fused multiply-adds), only over tiles that hold a pair a &lt; b; the
+/// permutation only chooses which row of the table the second factor reads, so no data is copied per draw. PLV and PPC
+/// come from the unit-phasor product, coherence and imaginary coherency from the raw product. PLI, wPLI and debiased
+/// wPLI² are not bilinear; they run the same tiling with a vector loop over the trials. AEC is, per trial, the same
+/// kind of product of the envelope deviations over the time points, followed by a vectorised atanh; AEC-orth the
+/// same tiling over the orthogonalised envelopes, with one-pass sums Σy, Σy², Σy·u for each Pearson r. Results equal
+/// the definitions above up to rounding (about 1e-15 relative on unit-scale data; the tests allow 1e-12). Non-finite
 /// input gives NaN.</para>
 /// </remarks>
 public static class PairwiseKernels
@@ -69,20 +78,19 @@ public static class PairwiseKernels
         CheckPermutation(permutation, trials, workspace.Seen);
 
         values.Clear();
+        foreach (var dense in workspace.Dense) dense?.Clear();
         if (workspace.NeedsPhase || workspace.NeedsCross)
         {
             for (int t = 0; t < set.TimeCount; t++)
-                AddTimePoint(workspace, set.Block(t), permutation, values);
-            double inverseTimes = 1.0 / set.TimeCount;
-            foreach (var measure in workspace.Measures)
-            {
-                if (measure is Measure.Aec or Measure.AecOrth) continue;
-                var slice = values.Slice(workspace.Slot[(int)measure] * workspace.PairCount, workspace.PairCount);
-                for (int p = 0; p < slice.Length; p++) slice[p] *= inverseTimes;
-            }
+                AddTimePoint(workspace, t, permutation);
+            Extract(workspace, values, static (sum, scale) => sum * scale, 1.0 / set.TimeCount, envelope: false);
         }
         if (workspace.NeedsEnvelope)
-            AddEnvelopeMeasures(workspace, permutation, values);
+        {
+            for (int n = 0; n < trials; n++)
+                AddTrial(workspace, n, permutation[n]);
+            Extract(workspace, values, static (sum, scale) => Math.Tanh(sum * scale), 1.0 / trials, envelope: true);
+        }
     }
 
     /// <summary>
@@ -115,213 +123,200 @@ public static class PairwiseKernels
         }
     }
 
-    private static void AddTimePoint(PairwiseWorkspace w, ReadOnlySpan<System.Numerics.Complex> block,
-        ReadOnlySpan<int> permutation, Span<double> values)
+    /// <summary>Turns the dense per-slot sums into per-pair values: the mean over time points, or tanh of the mean atanh.</summary>
+    private static void Extract(PairwiseWorkspace w, Span<double> values, Func<double, double, double> finish, double scale, bool envelope)
     {
-        int channels = w.Set.ChannelCount, trials = w.Set.TrialCount, pairs = w.PairCount;
-        int[] slot = w.Slot;
-
-        // One pass over the block: split rows, unit phasors, powers; the same rows with trials permuted.
-        for (int c = 0; c < channels; c++)
+        int channels = w.Set.ChannelCount, pairs = w.PairCount, stride = w.Tables.Stride;
+        for (int k = 0; k < w.Measures.Count; k++)
         {
-            int row = c * trials;
-            double power = 0;
-            for (int n = 0; n < trials; n++)
-            {
-                var z = block[row + n];
-                var zp = block[row + permutation[n]];
-                if (w.NeedsCross)
-                {
-                    w.RawRe[row + n] = z.Real; w.RawIm[row + n] = z.Imaginary;
-                    w.RawRePermuted[row + n] = zp.Real; w.RawImPermuted[row + n] = zp.Imaginary;
-                    power += z.Real * z.Real + z.Imaginary * z.Imaginary;
-                }
-                if (w.NeedsPhase)
-                {
-                    Unit(z, out w.UnitRe[row + n], out w.UnitIm[row + n]);
-                    Unit(zp, out w.UnitRePermuted[row + n], out w.UnitImPermuted[row + n]);
-                }
-            }
-            if (w.NeedsCross) w.Power[c] = power;
-        }
-
-        int plv = slot[(int)Measure.Plv], ppc = slot[(int)Measure.Ppc], pli = slot[(int)Measure.Pli];
-        int wpli = slot[(int)Measure.Wpli], debiased = slot[(int)Measure.WpliDebiased];
-        int coherence = slot[(int)Measure.Coherence], imag = slot[(int)Measure.ImagCoherency];
-        double count = trials;
-        double ppcScale = 1.0 / (count * (count - 1));
-
-        int pair = 0;
-        for (int a = 0; a < channels - 1; a++)
-        {
-            int rowA = a * trials;
-            for (int b = a + 1; b < channels; b++, pair++)
-            {
-                int rowB = b * trials;
-                if (w.NeedsPhase)
-                {
-                    DotConjugate(w.UnitRe.AsSpan(rowA, trials), w.UnitIm.AsSpan(rowA, trials),
-                        w.UnitRePermuted.AsSpan(rowB, trials), w.UnitImPermuted.AsSpan(rowB, trials),
-                        out double sr, out double si);
-                    double squared = sr * sr + si * si;
-                    if (plv >= 0) values[plv * pairs + pair] += Math.Sqrt(squared) / count;
-                    if (ppc >= 0) values[ppc * pairs + pair] += trials < 2 ? double.NaN : (squared - count) * ppcScale;
-                }
-                if (w.NeedsCross)
-                {
-                    var aRe = w.RawRe.AsSpan(rowA, trials);
-                    var aIm = w.RawIm.AsSpan(rowA, trials);
-                    var bRe = w.RawRePermuted.AsSpan(rowB, trials);
-                    var bIm = w.RawImPermuted.AsSpan(rowB, trials);
-                    double cr, ci;
-                    if (w.NeedsLag)
-                    {
-                        CrossAndLag(aRe, aIm, bRe, bIm, out cr, out ci, out double signSum, out double absSum, out double squareSum);
-                        if (pli >= 0) values[pli * pairs + pair] += Math.Abs(signSum) / count;
-                        if (wpli >= 0) values[wpli * pairs + pair] += absSum > 0 ? Math.Abs(ci) / absSum : (double.IsNaN(absSum) ? double.NaN : 0);
-                        if (debiased >= 0)
-                        {
-                            double denominator = absSum * absSum - squareSum;
-                            values[debiased * pairs + pair] += denominator > 0
-                                ? (ci * ci - squareSum) / denominator
-                                : (double.IsNaN(denominator) ? double.NaN : 0);
-                        }
-                    }
-                    else
-                    {
-                        DotConjugate(aRe, aIm, bRe, bIm, out cr, out ci);
-                    }
-                    double powers = w.Power[a] * w.Power[b];
-                    if (coherence >= 0)
-                        values[coherence * pairs + pair] += powers > 0 ? (cr * cr + ci * ci) / powers : (double.IsNaN(powers) ? double.NaN : 0);
-                    if (imag >= 0)
-                        values[imag * pairs + pair] += powers > 0 ? ci / Math.Sqrt(powers) : (double.IsNaN(powers) ? double.NaN : 0);
-                }
-            }
-        }
-    }
-
-    private static void Unit(System.Numerics.Complex z, out double re, out double im)
-    {
-        double magnitude = Math.Sqrt(z.Real * z.Real + z.Imaginary * z.Imaginary);
-        if (magnitude > 0) { re = z.Real / magnitude; im = z.Imaginary / magnitude; }
-        else if (magnitude == 0) { re = 0; im = 0; }
-        else { re = double.NaN; im = double.NaN; }
-    }
-
-    /// <summary>Σ x_n · conj(y_n) over two split complex rows.</summary>
-    private static void DotConjugate(ReadOnlySpan<double> xRe, ReadOnlySpan<double> xIm,
-        ReadOnlySpan<double> yRe, ReadOnlySpan<double> yIm, out double re, out double im)
-    {
-        double sr = 0, si = 0;
-        for (int n = 0; n < xRe.Length; n++)
-        {
-            sr += xRe[n] * yRe[n] + xIm[n] * yIm[n];
-            si += xIm[n] * yRe[n] - xRe[n] * yIm[n];
-        }
-        re = sr; im = si;
-    }
-
-    /// <summary>Σ X_n, Σ sign(Im X_n), Σ |Im X_n| and Σ (Im X_n)² with X_n = x_n · conj(y_n), in one loop.</summary>
-    private static void CrossAndLag(ReadOnlySpan<double> xRe, ReadOnlySpan<double> xIm,
-        ReadOnlySpan<double> yRe, ReadOnlySpan<double> yIm,
-        out double re, out double im, out double signSum, out double absSum, out double squareSum)
-    {
-        double sr = 0, si = 0, sign = 0, abs = 0, square = 0;
-        for (int n = 0; n < xRe.Length; n++)
-        {
-            // Two rounded products, no fused multiply-add: for an exact copy y = c·x (c a power of two, or c = 1 in a
-            // duplicated channel) the two products are equal and Im X_n is exactly 0, so sign(Im X_n) = 0 and PLI is 0.
-            // A fused form would leave the rounding error of one product, whose sign is arbitrary.
-            double imaginary = xIm[n] * yRe[n] - xRe[n] * yIm[n];
-            sr += xRe[n] * yRe[n] + xIm[n] * yIm[n];
-            si += imaginary;
-            sign += imaginary > 0 ? 1 : imaginary < 0 ? -1 : imaginary == 0 ? 0 : double.NaN;
-            abs += Math.Abs(imaginary);
-            square += imaginary * imaginary;
-        }
-        re = sr; im = si; signSum = sign; absSum = abs; squareSum = square;
-    }
-
-    private static void AddEnvelopeMeasures(PairwiseWorkspace w, ReadOnlySpan<int> permutation, Span<double> values)
-    {
-        var tables = w.Tables!;
-        int channels = w.Set.ChannelCount, trials = w.Set.TrialCount, times = w.Set.TimeCount, pairs = w.PairCount;
-        int aec = w.Slot[(int)Measure.Aec], orth = w.Slot[(int)Measure.AecOrth];
-        var unit = tables.UnitDeviation;
-        for (int n = 0; n < trials; n++)
-        {
-            int baseA = n * tables.Stride, baseB = permutation[n] * tables.Stride;
+            bool isEnvelope = w.Measures[k] is Measure.Aec or Measure.AecOrth;
+            if (isEnvelope != envelope) continue;
+            var dense = w.Dense[k]!;
+            var slice = values.Slice(k * pairs, pairs);
             int pair = 0;
             for (int a = 0; a < channels - 1; a++)
             {
-                int rowA = baseA + a * times;
-                var unitA = unit.AsSpan(rowA, times);
-                for (int b = a + 1; b < channels; b++, pair++)
-                {
-                    int rowB = baseB + b * times;
-                    var unitB = unit.AsSpan(rowB, times);
-                    if (aec >= 0)
-                        values[aec * pairs + pair] += FisherZ(Dot(unitA, unitB));
-                    if (orth >= 0)
-                        values[orth * pairs + pair] += FisherZ(OrthogonalizedCorrelation(tables, rowA, rowB, unitA, unitB, w.OrthA, w.OrthB));
-                }
+                var row = dense.Slice((long)a * stride, stride);
+                for (int b = a + 1; b < channels; b++, pair++) slice[pair] = finish(row[b], scale);
             }
         }
-        if (aec >= 0) FinishFisher(values.Slice(aec * pairs, pairs), trials);
-        if (orth >= 0) FinishFisher(values.Slice(orth * pairs, pairs), trials);
     }
 
-    /// <summary>Turns sums of atanh(r_n) over the trials into tanh of their mean.</summary>
-    private static void FinishFisher(Span<double> sums, int trials)
+    /// <summary>Adds the per-time-point values of time point <paramref name="t"/> to the dense sums.</summary>
+    private static void AddTimePoint(PairwiseWorkspace w, int t, ReadOnlySpan<int> permutation)
     {
-        for (int p = 0; p < sums.Length; p++) sums[p] = Math.Tanh(sums[p] / trials);
-    }
-
-    /// <summary>(r_ab + r_ba)/2 of one trial: see the type's remarks.</summary>
-    private static double OrthogonalizedCorrelation(EnvelopeTables tables, int rowA, int rowB,
-        ReadOnlySpan<double> unitA, ReadOnlySpan<double> unitB, double[] orthA, double[] orthB)
-    {
-        int times = tables.Times;
-        var re = tables.Re!; var im = tables.Im!; var envelope = tables.Envelope;
-        // y: |b orthogonalised to a|, paired with |z_a|; x: |a orthogonalised to b|, paired with |z_b|.
-        var y = orthA.AsSpan(0, times);
-        var x = orthB.AsSpan(0, times);
-        for (int t = 0; t < times; t++)
+        var tables = w.Tables;
+        int channels = tables.Channels, stride = tables.Stride, trials = tables.Trials;
+        long timeBase = (long)t * trials * stride;
+        double count = trials;
+        var slot = w.Slot;
+        Vectors24 sums = default;
+        if (w.NeedsPhase)
         {
-            double q = Math.Abs(im[rowB + t] * re[rowA + t] - re[rowB + t] * im[rowA + t]);
-            double envA = envelope[rowA + t], envB = envelope[rowB + t];
-            y[t] = envA > 0 ? q / envA : (envA == 0 ? 0 : double.NaN);
-            x[t] = envB > 0 ? q / envB : (envB == 0 ? 0 : double.NaN);
+            var plv = w.DenseOf(Measure.Plv);
+            var ppc = w.DenseOf(Measure.Ppc);
+            var inverseCount = Vector256.Create(1 / count);
+            var countVector = Vector256.Create(count);
+            var ppcScale = Vector256.Create(trials < 2 ? double.NaN : 1 / (count * (count - 1)));
+            ref double re = ref tables.UnitRe!.Start;
+            ref double im = ref tables.UnitIm!.Start;
+            for (int b0 = 0; b0 < channels; b0 += TileKernels.ComplexColumns)
+                for (int a0 = 0; a0 < Math.Min(b0 + TileKernels.ComplexColumns, channels) - 1; a0 += TileKernels.ComplexRows)
+                {
+                    TileKernels.ComplexTile(ref re, ref im, timeBase, stride, permutation, a0, b0, ref sums);
+                    for (int r = 0; r < TileKernels.ComplexRows; r++)
+                        for (int v = 0; v < 2; v++)
+                        {
+                            int i = 2 * r + v;
+                            var real = sums[i];
+                            var imaginary = sums[8 + i] - sums[16 + i];
+                            var squared = real * real + imaginary * imaginary;
+                            nuint offset = (nuint)((a0 + r) * stride + b0 + 4 * v);
+                            if (plv is not null) AddTo(plv, offset, Vector256.Sqrt(squared) * inverseCount);
+                            if (ppc is not null) AddTo(ppc, offset, (squared - countVector) * ppcScale);
+                        }
+                }
         }
-        return 0.5 * (CorrelationWithUnit(y, unitA) + CorrelationWithUnit(x, unitB));
-    }
-
-    /// <summary>Pearson r of <paramref name="values"/> with a row already centred and scaled to unit norm.</summary>
-    private static double CorrelationWithUnit(ReadOnlySpan<double> values, ReadOnlySpan<double> unit)
-    {
-        double mean = 0;
-        for (int t = 0; t < values.Length; t++) mean += values[t];
-        mean /= values.Length;
-        double cross = 0, squares = 0;
-        for (int t = 0; t < values.Length; t++)
+        if (w.NeedsCross)
         {
-            double d = values[t] - mean;
-            cross += d * unit[t];
-            squares += d * d;
+            var coherence = w.DenseOf(Measure.Coherence);
+            var imag = w.DenseOf(Measure.ImagCoherency);
+            ref double re = ref tables.RawRe!.Start;
+            ref double im = ref tables.RawIm!.Start;
+            ref double weight = ref tables.InverseRootPower!.Start;
+            nint weightBase = (nint)t * stride;
+            if (coherence is not null || imag is not null)
+                for (int b0 = 0; b0 < channels; b0 += TileKernels.ComplexColumns)
+                    for (int a0 = 0; a0 < Math.Min(b0 + TileKernels.ComplexColumns, channels) - 1; a0 += TileKernels.ComplexRows)
+                    {
+                        TileKernels.ComplexTile(ref re, ref im, timeBase, stride, permutation, a0, b0, ref sums);
+                        for (int r = 0; r < TileKernels.ComplexRows; r++)
+                        {
+                            var weightA = Vector256.Create(Unsafe.Add(ref weight, weightBase + a0 + r));
+                            for (int v = 0; v < 2; v++)
+                            {
+                                int i = 2 * r + v;
+                                var real = sums[i];
+                                var imaginary = sums[8 + i] - sums[16 + i];
+                                var both = weightA * Vector256.LoadUnsafe(ref weight, (nuint)(weightBase + b0 + 4 * v));
+                                nuint offset = (nuint)((a0 + r) * stride + b0 + 4 * v);
+                                if (coherence is not null) AddTo(coherence, offset, (real * real + imaginary * imaginary) * (both * both));
+                                if (imag is not null) AddTo(imag, offset, imaginary * both);
+                            }
+                        }
+                    }
+            if (w.NeedsLag)
+                AddLag(w, ref re, ref im, timeBase, permutation);
         }
-        if (squares > 0) return cross / Math.Sqrt(squares);
-        return double.IsNaN(squares) ? double.NaN : 0;
     }
 
-    private static double Dot(ReadOnlySpan<double> x, ReadOnlySpan<double> y)
+    private static void AddLag(PairwiseWorkspace w, ref double re, ref double im, long timeBase, ReadOnlySpan<int> permutation)
     {
-        double sum = 0;
-        for (int t = 0; t < x.Length; t++) sum += x[t] * y[t];
-        return sum;
+        var tables = w.Tables;
+        int channels = tables.Channels, stride = tables.Stride;
+        var pli = w.DenseOf(Measure.Pli);
+        var wpli = w.DenseOf(Measure.Wpli);
+        var debiased = w.DenseOf(Measure.WpliDebiased);
+        var inverseCount = Vector256.Create(1.0 / tables.Trials);
+        Vectors16 sums = default;
+        for (int b0 = 0; b0 < channels; b0 += TileKernels.LagColumns)
+            for (int a0 = 0; a0 < Math.Min(b0 + TileKernels.LagColumns, channels) - 1; a0 += TileKernels.LagRows)
+            {
+                TileKernels.LagTile(ref re, ref im, timeBase, stride, permutation, a0, b0, ref sums);
+                for (int i = 0; i < 4; i++)
+                {
+                    int r = i / 2, v = i % 2;
+                    var sum = sums[i];
+                    var absolute = sums[4 + i];
+                    var squares = sums[8 + i];
+                    var sign = sums[12 + i];
+                    nuint offset = (nuint)((a0 + r) * stride + b0 + 4 * v);
+                    // A NaN term makes the absolute sum NaN; then every lag measure is NaN. Where the absolute sum is 0
+                    // (no nonzero imaginary part) wPLI is 0, which is the absolute sum itself.
+                    if (pli is not null)
+                        AddTo(pli, offset, Vector256.ConditionalSelect(Vector256.Equals(absolute, absolute),
+                            Vector256.Abs(sign) * inverseCount, absolute));
+                    if (wpli is not null)
+                        AddTo(wpli, offset, Vector256.ConditionalSelect(Vector256.GreaterThan(absolute, Vector256<double>.Zero),
+                            Vector256.Abs(sum) / absolute, absolute));
+                    if (debiased is not null)
+                    {
+                        var denominator = absolute * absolute - squares;
+                        AddTo(debiased, offset, Vector256.ConditionalSelect(Vector256.GreaterThan(denominator, Vector256<double>.Zero),
+                            (sum * sum - squares) / denominator,
+                            Vector256.ConditionalSelect(Vector256.Equals(denominator, denominator), Vector256<double>.Zero, denominator)));
+                    }
+                }
+            }
     }
 
-    private static double FisherZ(double r) => Math.Atanh(Math.Clamp(r, -FisherClamp, FisherClamp));
+    /// <summary>Adds the Fisher-transformed per-trial correlations of trial <paramref name="trial"/> (channel a) with trial <paramref name="partner"/> (channel b).</summary>
+    private static void AddTrial(PairwiseWorkspace w, int trial, int partner)
+    {
+        var tables = w.Tables;
+        int channels = tables.Channels, stride = tables.Stride, times = tables.Times;
+        nint xBase = (nint)trial * times * stride, yBase = (nint)partner * times * stride;
+        Vectors24 sums = default;
+        var aec = w.DenseOf(Measure.Aec);
+        var orth = w.DenseOf(Measure.AecOrth);
+        ref double u = ref tables.Deviation!.Start;
+        if (aec is not null)
+            for (int b0 = 0; b0 < channels; b0 += TileKernels.DotColumns)
+                for (int a0 = 0; a0 < Math.Min(b0 + TileKernels.DotColumns, channels) - 1; a0 += TileKernels.DotRows)
+                {
+                    TileKernels.DotTile(ref u, xBase + a0, yBase + b0, stride, times, ref sums);
+                    for (int i = 0; i < 8; i++)
+                        AddTo(aec, (nuint)((a0 + i / 2) * stride + b0 + 4 * (i % 2)), FisherZ(sums[i]));
+                }
+        if (orth is not null)
+        {
+            ref double re = ref tables.EnvelopeRe!.Start;
+            ref double im = ref tables.EnvelopeIm!.Start;
+            ref double inverse = ref tables.InverseEnvelope!.Start;
+            var inverseTimes = Vector256.Create(1.0 / times);
+            var half = Vector256.Create(0.5);
+            for (int b0 = 0; b0 < channels; b0 += TileKernels.OrthogonalColumns)
+                for (int a0 = 0; a0 < Math.Min(b0 + TileKernels.OrthogonalColumns, channels) - 1; a0 += TileKernels.OrthogonalRows)
+                {
+                    TileKernels.OrthogonalTile(ref re, ref im, ref inverse, ref u, xBase + a0, yBase + b0, stride, times, ref sums);
+                    for (int r = 0; r < TileKernels.OrthogonalRows; r++)
+                    {
+                        var rab = Correlation(sums[6 * r], sums[6 * r + 1], sums[6 * r + 2], inverseTimes);
+                        var rba = Correlation(sums[6 * r + 3], sums[6 * r + 4], sums[6 * r + 5], inverseTimes);
+                        AddTo(orth, (nuint)((a0 + r) * stride + b0), FisherZ(half * (rab + rba)));
+                    }
+                }
+        }
+    }
+
+    /// <summary>
+    /// Pearson r of a series with a unit-norm, zero-mean one from Σy, Σy² and Σy·u: Σy·u / sqrt(Σy² − (Σy)²/T); 0 when
+    /// that variance is not positive, NaN when it is NaN.
+    /// </summary>
+    private static Vector256<double> Correlation(Vector256<double> sum, Vector256<double> squares, Vector256<double> cross,
+        Vector256<double> inverseTimes)
+    {
+        var variance = squares - sum * sum * inverseTimes;
+        return Vector256.ConditionalSelect(Vector256.GreaterThan(variance, Vector256<double>.Zero),
+            cross / Vector256.Sqrt(variance),
+            Vector256.ConditionalSelect(Vector256.Equals(variance, variance), Vector256<double>.Zero, variance));
+    }
+
+    /// <summary>atanh of r clamped to ±<see cref="FisherClamp"/>, as ½·log((1 + r)/(1 − r)); NaN stays NaN.</summary>
+    private static Vector256<double> FisherZ(Vector256<double> r)
+    {
+        var bound = Vector256.Create(FisherClamp);
+        var clamped = Vector256.Min(Vector256.Max(r, -bound), bound);
+        var one = Vector256.Create(1.0);
+        var z = Vector256.Create(0.5) * Vector256.Log((one + clamped) / (one - clamped));
+        return Vector256.ConditionalSelect(Vector256.Equals(r, r), z, r);
+    }
+
+    private static void AddTo(AlignedArray dense, nuint offset, Vector256<double> value)
+    {
+        ref double start = ref dense.Start;
+        (Vector256.LoadUnsafe(ref start, offset) + value).StoreUnsafe(ref start, offset);
+    }
 
     /// <summary>
     /// Writes (x − mean(x)) / ‖x − mean(x)‖ into <paramref name="unit"/>; all zeros when x is constant, NaN when x

@@ -6,7 +6,7 @@ namespace Coupling.Measures;
 /// Scratch memory for <see cref="PairwiseKernels.Compute(PairwiseWorkspace, ReadOnlySpan{int}, Span{double})"/>, sized
 /// once for one <see cref="NarrowbandSet"/> and one list of measures, so that repeated computations (surrogate draws)
 /// allocate nothing. A workspace is used by one thread at a time; <see cref="CreateSibling"/> gives another thread
-/// its own scratch while sharing the per-set envelope tables, which are built once and only read afterwards.
+/// its own scratch while sharing the per-set tables (see PairTables), which are built once and only read afterwards.
 /// </summary>
 public sealed class PairwiseWorkspace
 {
@@ -19,7 +19,7 @@ public sealed class PairwiseWorkspace
     {
     }
 
-    private PairwiseWorkspace(NarrowbandSet set, IReadOnlyList<Measure> measures, EnvelopeTables? tables)
+    private PairwiseWorkspace(NarrowbandSet set, IReadOnlyList<Measure> measures, PairTables? tables)
     {
         ArgumentNullException.ThrowIfNull(set);
         ArgumentNullException.ThrowIfNull(measures);
@@ -46,25 +46,10 @@ public sealed class PairwiseWorkspace
         NeedsCross = NeedsLag || Has(Measure.Coherence) || Has(Measure.ImagCoherency);
         NeedsEnvelope = Has(Measure.Aec) || Has(Measure.AecOrth);
 
-        int block = set.ChannelCount * set.TrialCount;
-        if (NeedsPhase)
-        {
-            UnitRe = new double[block]; UnitIm = new double[block];
-            UnitRePermuted = new double[block]; UnitImPermuted = new double[block];
-        }
-        if (NeedsCross)
-        {
-            RawRe = new double[block]; RawIm = new double[block];
-            RawRePermuted = new double[block]; RawImPermuted = new double[block];
-            Power = new double[set.ChannelCount];
-        }
-        if (NeedsEnvelope)
-            Tables = tables ?? new EnvelopeTables(set, keepComplex: Has(Measure.AecOrth));
-        if (Has(Measure.AecOrth))
-        {
-            OrthA = new double[set.TimeCount];
-            OrthB = new double[set.TimeCount];
-        }
+        Tables = tables ?? new PairTables(set, NeedsPhase, NeedsCross, NeedsEnvelope, Has(Measure.AecOrth));
+        Dense = new AlignedArray?[Measures.Count];
+        long square = (long)Tables.Stride * Tables.Stride;
+        for (int k = 0; k < Measures.Count; k++) Dense[k] = new AlignedArray(square);
         Seen = new bool[set.TrialCount];
     }
 
@@ -90,19 +75,13 @@ public sealed class PairwiseWorkspace
     internal bool NeedsCross { get; }
     internal bool NeedsLag { get; }
     internal bool NeedsEnvelope { get; }
-    internal double[] UnitRe { get; } = [];
-    internal double[] UnitIm { get; } = [];
-    internal double[] UnitRePermuted { get; } = [];
-    internal double[] UnitImPermuted { get; } = [];
-    internal double[] RawRe { get; } = [];
-    internal double[] RawIm { get; } = [];
-    internal double[] RawRePermuted { get; } = [];
-    internal double[] RawImPermuted { get; } = [];
-    internal double[] Power { get; } = [];
-    internal double[] OrthA { get; } = [];
-    internal double[] OrthB { get; } = [];
+    /// <summary>Per output slot, the sums of every pair (a, b) at [a * stride + b], stride = the tables' padded channel count.</summary>
+    internal AlignedArray?[] Dense { get; }
     internal bool[] Seen { get; }
-    internal EnvelopeTables? Tables { get; }
+    internal PairTables Tables { get; }
+
+    /// <summary>The dense sums of <paramref name="measure"/>, or null when it is not computed.</summary>
+    internal AlignedArray? DenseOf(Measure measure) => Slot[(int)measure] is int k and >= 0 ? Dense[k] : null;
 
     private bool Has(Measure measure) => Slot[(int)measure] >= 0;
 }

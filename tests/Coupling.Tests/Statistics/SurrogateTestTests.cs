@@ -39,6 +39,19 @@ public class SurrogateTestTests
     }
 
     [Fact]
+    public void The_thread_count_does_not_change_a_single_bit_over_several_kernel_tiles()
+    {
+        // 19 channels span three column tiles and a partial one, 13 trials and 9 time points fill no vector evenly;
+        // workers share the per-set tables and each has its own sums, so any sharing mistake would show here.
+        var set = TestSignals.Random(19, 13, 9, seed: 31);
+        var one = Bytes(SurrogateTest.Run(set, Every, 70, seed: 11, "x", maxThreads: 1));
+        var two = Bytes(SurrogateTest.Run(set, Every, 70, seed: 11, "x", maxThreads: 2));
+        var four = Bytes(SurrogateTest.Run(set, Every, 70, seed: 11, "x", maxThreads: 4));
+        Assert.Equal(one, two);
+        Assert.Equal(one, four);
+    }
+
+    [Fact]
     public void Null_summaries_equal_those_of_the_draws_computed_one_by_one()
     {
         // The streaming mean, sample standard deviation and exceedance count against a direct computation from the

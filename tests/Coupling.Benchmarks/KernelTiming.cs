@@ -1,0 +1,58 @@
+using System.Diagnostics;
+using Coupling.Measures;
+
+namespace Coupling.Benchmarks;
+
+/// <summary>
+/// Times one surrogate draw of each kernel group on one thread and reports the cost per pair and time point and,
+/// for the matrix-product groups, the floating-point rate.
+/// </summary>
+public static class KernelTiming
+{
+    public static readonly (string Name, Measure[] Measures, double FlopsPerPairTrialTime)[] Groups =
+    [
+        // One complex product per pair, trial and time point: 4 real multiplications and 4 additions.
+        ("phase (plv, ppc)", [Measure.Plv, Measure.Ppc], 8),
+        ("cross (coherence, imag-coherency)", [Measure.Coherence, Measure.ImagCoherency], 8),
+        ("lag (pli, wpli, wpli-debiased)", [Measure.Pli, Measure.Wpli, Measure.WpliDebiased], 0),
+        // One multiply-add per pair, trial and time point.
+        ("aec", [Measure.Aec], 2),
+        ("aec-orth", [Measure.AecOrth], 0),
+        ("all nine", MeasureCatalog.All.ToArray(), 0),
+    ];
+
+    public static void Run(int channels, int trials, int times, int repeats, TextWriter output)
+    {
+        var set = SyntheticSets.Random(channels, trials, times, seed: 5);
+        var perm = SyntheticSets.Permutation(trials, seed: 9);
+        int pairs = PairIndex.Count(channels);
+        output.WriteLine($"kernels: {channels} channels, {trials} trials, {times} time points, one thread, median of {repeats}");
+        foreach (var (name, measures, flops) in Groups)
+        {
+            var workspace = new PairwiseWorkspace(set, measures);
+            var values = new double[workspace.OutputLength];
+            // Warm up past tiered compilation: at least 0.5 s and 60 calls.
+            long warm = Stopwatch.GetTimestamp();
+            for (int i = 0; i < 60 || Stopwatch.GetElapsedTime(warm).TotalSeconds < 0.5; i++)
+                PairwiseKernels.Compute(workspace, perm, values);
+            int inner = Math.Max(1, (int)(2e8 / ((double)pairs * trials * times * 8)));
+            var seconds = new double[repeats];
+            for (int r = 0; r < repeats; r++)
+            {
+                long t0 = Stopwatch.GetTimestamp();
+                for (int i = 0; i < inner; i++) PairwiseKernels.Compute(workspace, perm, values);
+                seconds[r] = Stopwatch.GetElapsedTime(t0).TotalSeconds / inner;
+            }
+            Array.Sort(seconds);
+            // The minimum is quoted beside the median: on a shared machine it is the best estimate of what the kernel
+            // does when it has the core to itself.
+            double draw = seconds[repeats / 2], best = seconds[0];
+            double perPairTime = draw / ((double)pairs * times) * 1e9;
+            double bestPerPairTime = best / ((double)pairs * times) * 1e9;
+            string rate = flops > 0
+                ? $", {flops * pairs * trials * times / draw / 1e9,6:F2} (best {flops * pairs * trials * times / best / 1e9,6:F2}) GFLOP/s"
+                : "";
+            output.WriteLine($"  {name,-36} {draw * 1e3,8:F3} ms/draw, {perPairTime,7:F2} (best {bestPerPairTime,7:F2}) ns per pair and time point{rate}");
+        }
+    }
+}

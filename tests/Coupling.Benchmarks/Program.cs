@@ -1,0 +1,29 @@
+using BenchmarkDotNet.Running;
+using Coupling.Benchmarks;
+
+// Entry point: "w1 [--channels N] [--trials N] [--draws N] [--conditions N] [--threads N] [--step K]" times the
+// reference workload end to end; "kernels [...]" times each kernel group; "precision PLAN [--draws N]" compares
+// single-precision storage with double; anything else goes to BenchmarkDotNet.
+if (args.Length > 1 && args[0] == "precision")
+{
+    int i = Array.IndexOf(args, "--draws");
+    Precision.Run(args[1], i > 0 ? int.Parse(args[i + 1], System.Globalization.CultureInfo.InvariantCulture) : 1000, Console.Out);
+    return 0;
+}
+if (args.Length > 0 && (args[0] == "w1" || args[0] == "kernels"))
+{
+    int Option(string name, int fallback)
+    {
+        int i = Array.IndexOf(args, "--" + name);
+        return i >= 0 && i + 1 < args.Length ? int.Parse(args[i + 1], System.Globalization.CultureInfo.InvariantCulture) : fallback;
+    }
+    int? step = Array.IndexOf(args, "--step") >= 0 ? Option("step", 1) : null;
+    if (args[0] == "w1")
+        EndToEnd.Run(Option("channels", 64), Option("trials", 100), Option("draws", 1000), Option("conditions", 2),
+            Option("threads", 0), step, Console.Out);
+    else
+        KernelTiming.Run(Option("channels", 64), Option("trials", 100), Option("times", 64), Option("repeats", 7), Console.Out);
+    return 0;
+}
+BenchmarkSwitcher.FromAssembly(typeof(KernelBenchmarks).Assembly).Run(args);
+return 0;
