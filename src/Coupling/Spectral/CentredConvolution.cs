@@ -16,6 +16,7 @@ internal sealed class CentredConvolution
     private readonly int _delay;
     private readonly Action<Complex[]>? _mask;
     private readonly ConcurrentDictionary<int, Complex[]> _spectra = new();
+    private readonly ThreadLocal<Complex[]?> _scratch = new();
 
     /// <param name="taps">The kernel, first tap first.</param>
     /// <param name="delay">Samples of the linear convolution before the centred output starts.</param>
@@ -35,8 +36,12 @@ internal sealed class CentredConvolution
         if (n == 0) return;
         int size = SpectralChecks.PowerOfTwoAtLeast(n + _taps.Length - 1);
         Complex[] kernel = _spectra.GetOrAdd(size, Spectrum);
-        var buffer = new Complex[size];
+        // One transform buffer per thread, reused while the segment length stays the same (the usual case: every trial
+        // of a condition has one length), so band isolation does not allocate per trial and channel.
+        var buffer = _scratch.Value;
+        if (buffer is null || buffer.Length != size) _scratch.Value = buffer = new Complex[size];
         for (int i = 0; i < n; i++) buffer[i] = input[i];
+        Array.Clear(buffer, n, size - n);
         Fourier.Forward(buffer, FourierOptions.Matlab);
         for (int k = 0; k < size; k++) buffer[k] *= kernel[k];
         Fourier.Inverse(buffer, FourierOptions.Matlab);

@@ -41,13 +41,17 @@ public static class NarrowbandExtractor
         int nT = samples.Length, nC = trials.ChannelCount, nN = trials.TrialCount;
         var data = new Complex[(long)nT * nC * nN];
         var options = new ParallelOptions { MaxDegreeOfParallelism = maxThreads > 0 ? maxThreads : -1 };
+        // Trials are padded for the band that needs the most; each band uses only the padding it needs itself, so the
+        // transforms of high bands stay short.
+        int skip = trials.PadSamples - Math.Min(decomposition.PadSamples, trials.PadSamples);
+        int length = trials.SampleCount - 2 * skip;
         Parallel.For(0, nN * nC, options,
-            () => new Complex[trials.SampleCount],
+            () => new Complex[length],
             (job, _, buffer) =>
             {
                 int n = job / nC, c = job % nC;
-                decomposition.Apply(trials.Trial(n, c), buffer);
-                for (int t = 0; t < nT; t++) data[((long)t * nC + c) * nN + n] = buffer[samples[t]];
+                decomposition.Apply(trials.Trial(n, c).Slice(skip, length), buffer);
+                for (int t = 0; t < nT; t++) data[((long)t * nC + c) * nN + n] = buffer[samples[t] - skip];
                 return buffer;
             },
             _ => { });
