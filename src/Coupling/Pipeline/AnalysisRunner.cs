@@ -49,16 +49,16 @@ public static class AnalysisRunner
         var steps = decompositions.Select(d => plan.Decomposition.TimeStep ?? TimeStep.Default(d.Info, input.SampleRate)).ToArray();
         int pad = decompositions.Max(d => d.PadSamples);
 
-        // Cut every condition first, so that input problems (unknown labels, too few trials) surface before any long step.
-        var trialSets = new List<TrialSet>();
+        // Check every condition first, so that input problems (unknown labels, too few trials) surface before any long
+        // step. The trials are counted on an unpadded cut that is dropped at once (padding never changes which trials
+        // fit); each condition is cut again, padded, when its turn comes, so only one condition's trials are in memory.
         foreach (var condition in plan.Conditions)
         {
             foreach (var label in condition.EventLabels)
                 if (!input.EventLabels.Contains(label))
                     throw new InputException($"{plan.Source}: conditions.{condition.Name}: event label '{label}' does not occur in {input.Source}; labels there: {string.Join(", ", input.EventLabels.Distinct().Order(StringComparer.Ordinal))}.");
-            var trials = input.Trials(condition, plan.Trial, pad);
-            InPlan(plan, "surrogates", () => { SurrogateTest.CheckFeasible(trials.TrialCount, plan.Surrogates, condition.Name); return 0; });
-            trialSets.Add(trials);
+            int count = input.Trials(condition, plan.Trial, 0).TrialCount;
+            InPlan(plan, "surrogates", () => { SurrogateTest.CheckFeasible(count, plan.Surrogates, condition.Name); return 0; });
         }
 
         var warnings = new List<string>();
@@ -73,9 +73,9 @@ public static class AnalysisRunner
 
         var results = new List<PairResult>();
         var summaries = new List<ConditionSummary>();
-        int ci = 0;
-        foreach (var trials in trialSets)
+        for (int ci = 0; ci < plan.Conditions.Count; ci++)
         {
+            var trials = input.Trials(plan.Conditions[ci], plan.Trial, pad);
             if (plan.SubtractEvoked) EvokedRemoval.SubtractInPlace(trials);
             summaries.Add(new ConditionSummary(trials.Condition, trials.TrialCount, trials.DroppedTrials));
             for (int bi = 0; bi < decompositions.Length; bi++)
@@ -95,7 +95,6 @@ public static class AnalysisRunner
                         m.Observed, m.Z, m.P, corrected, significant, input.Channels.Select(c => c.Position).ToArray()));
                 }
             }
-            ci++;
         }
         return new Analysis(results, summaries, decompositions.Select(d => d.Info).ToArray(), steps, pad, warnings);
     }
