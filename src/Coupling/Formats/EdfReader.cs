@@ -48,13 +48,23 @@ public static class EdfReader
     {
         using var stream = Open(path);
         var header = ParseHeader(path, stream);
-        if (header.IsDiscontinuous)
-            throw new InputException($"{path}: EDF+D (discontinuous) files are not supported; only EDF and EDF+C can be read.");
         var notes = new List<string>();
-        var selected = SelectSignals(header, selectedChannels, notes);
-        if (header.RecordDuration <= 0)
-            throw new InputException($"{path}: header field 'duration of a data record' at byte 244 is {Text(header.RecordDuration)}; a file with data signals needs a positive record duration.");
-        var samples = ReadRecords(header, stream, selected, notes, out var events);
+        var selected = SelectReadable(header, selectedChannels, notes);
+        long perChannel = (long)header.RecordCount * header.Signals[selected[0]].SamplesPerRecord;
+        if (perChannel > Array.MaxLength)
+            throw new InputException($"{header.Source}: {perChannel} samples per signal is more than one array can hold; select a shorter file.");
+        var samples = selected.Select(_ => new double[perChannel]).ToArray();
+        var gains = selected.Select(i => header.Signals[i].Resolution).ToArray();
+        var offsets = SignalOffsets(header);
+        var events = ScanRecords(header, stream, notes, (r, record) =>
+        {
+            for (int c = 0; c < selected.Length; c++)
+            {
+                var s = header.Signals[selected[c]];
+                var bytes = record.Slice(offsets[selected[c]], 2 * s.SamplesPerRecord);
+                ScaleInto(bytes, s.DigitalMinimum, gains[c], s.PhysicalMinimum, samples[c].AsSpan(r * s.SamplesPerRecord, s.SamplesPerRecord));
+            }
+        });
         var channels = selected.Select(i => ToChannel(header.Signals[i])).ToArray();
         double rate = header.Signals[selected[0]].SampleRate;
         return new Recording(path, rate, channels, samples, events, notes);
@@ -68,11 +78,25 @@ public static class EdfReader
     {
         using var stream = Open(path);
         var header = ParseHeader(path, stream);
-        ReadRecords(header, stream, Array.Empty<int>(), new List<string>(), out var events);
-        return events;
+        return ScanRecords(header, stream, new List<string>(), null);
     }
 
-    private static FileStream Open(string path)
+    /// <summary>
+    /// Checks that <paramref name="header"/> describes a continuous file with data signals and chooses the signals to read
+    /// (see <see cref="Read"/>); signals left out for another sampling rate are noted in <paramref name="notes"/>.
+    /// </summary>
+    internal static int[] SelectReadable(EdfHeader header, IReadOnlyCollection<string>? selectedChannels, List<string> notes)
+    {
+        string path = header.Source;
+        if (header.IsDiscontinuous)
+            throw new InputException($"{path}: EDF+D (discontinuous) files are not supported; only EDF and EDF+C can be read.");
+        var selected = SelectSignals(header, selectedChannels, notes);
+        if (header.RecordDuration <= 0)
+            throw new InputException($"{path}: header field 'duration of a data record' at byte 244 is {Text(header.RecordDuration)}; a file with data signals needs a positive record duration.");
+        return selected;
+    }
+
+    internal static FileStream Open(string path)
     {
         try
         {
@@ -84,7 +108,7 @@ public static class EdfReader
         }
     }
 
-    private static ChannelInfo ToChannel(EdfSignalHeader s) => new(s.Label, TypeFromLabel(s.Label), s.PhysicalDimension);
+    internal static ChannelInfo ToChannel(EdfSignalHeader s) => new(s.Label, TypeFromLabel(s.Label), s.PhysicalDimension);
 
     /// <summary>EDF+ labels start with a signal type ("EEG Fpz-Cz"); the known EDF+ types are taken as the channel type.</summary>
     internal static string TypeFromLabel(string label)
@@ -133,20 +157,29 @@ public static class EdfReader
         return kept;
     }
 
-    private static double[][] ReadRecords(EdfHeader header, Stream stream, int[] selected, List<string> notes,
-        out IReadOnlyList<RecordingEvent> events)
+    /// <summary>Called with each data record's bytes, in record order.</summary>
+    internal delegate void RecordHandler(int record, ReadOnlySpan<byte> bytes);
+
+    /// <summary>Byte offset of each signal within a data record.</summary>
+    internal static int[] SignalOffsets(EdfHeader header)
+    {
+        var signals = header.Signals;
+        var offsets = new int[signals.Count];
+        for (int i = 1; i < signals.Count; i++) offsets[i] = offsets[i - 1] + 2 * signals[i - 1].SamplesPerRecord;
+        return offsets;
+    }
+
+    /// <summary>
+    /// Streams every data record in blocks of about 4 MiB, handing each to <paramref name="onRecord"/>, and parses the
+    /// annotation signals. Returns the events (onsets from the first record's time-keeping stamp, sorted); notes on
+    /// the records' timing go to <paramref name="notes"/>.
+    /// </summary>
+    internal static IReadOnlyList<RecordingEvent> ScanRecords(EdfHeader header, Stream stream, List<string> notes, RecordHandler? onRecord)
     {
         var signals = header.Signals;
         int signalCount = signals.Count;
-        var offsets = new int[signalCount];
-        for (int i = 1; i < signalCount; i++) offsets[i] = offsets[i - 1] + 2 * signals[i - 1].SamplesPerRecord;
+        var offsets = SignalOffsets(header);
         int recordBytes = checked((int)header.RecordBytes);
-
-        long perChannel = selected.Length == 0 ? 0 : (long)header.RecordCount * signals[selected[0]].SamplesPerRecord;
-        if (perChannel > Array.MaxLength)
-            throw new InputException($"{header.Source}: {perChannel} samples per signal is more than one array can hold; select a shorter file.");
-        var samples = selected.Select(_ => new double[perChannel]).ToArray();
-        var gains = selected.Select(i => signals[i].Resolution).ToArray();
 
         var annotationSignals = Enumerable.Range(0, signalCount).Where(i => signals[i].IsAnnotation).ToArray();
         var found = new List<RecordingEvent>();
@@ -163,13 +196,7 @@ public static class EdfReader
             {
                 int r = r0 + k;
                 var record = new ReadOnlySpan<byte>(buffer, k * recordBytes, recordBytes);
-                for (int c = 0; c < selected.Length; c++)
-                {
-                    var s = signals[selected[c]];
-                    var bytes = record.Slice(offsets[selected[c]], 2 * s.SamplesPerRecord);
-                    var target = samples[c].AsSpan(r * s.SamplesPerRecord, s.SamplesPerRecord);
-                    ScaleInto(bytes, s.DigitalMinimum, gains[c], s.PhysicalMinimum, target);
-                }
+                onRecord?.Invoke(r, record);
                 for (int a = 0; a < annotationSignals.Length; a++)
                 {
                     var s = signals[annotationSignals[a]];
@@ -186,8 +213,7 @@ public static class EdfReader
         if (start != 0)
             notes.Add($"The first data record starts {Text(start)} s after the header's start time; event onsets are measured from the first sample.");
         CheckContinuity(header, stamps, notes);
-        events = found.Select(e => e with { Onset = e.Onset - start }).OrderBy(e => e.Onset).ToArray();
-        return samples;
+        return found.Select(e => e with { Onset = e.Onset - start }).OrderBy(e => e.Onset).ToArray();
     }
 
     private static void CheckContinuity(EdfHeader header, double[] stamps, List<string> notes)
@@ -210,7 +236,7 @@ public static class EdfReader
     }
 
     /// <summary>phys = (dig - digMin) * gain + physMin, gain = (physMax - physMin) / (digMax - digMin).</summary>
-    private static void ScaleInto(ReadOnlySpan<byte> bytes, int digitalMinimum, double gain, double physicalMinimum, Span<double> target)
+    internal static void ScaleInto(ReadOnlySpan<byte> bytes, int digitalMinimum, double gain, double physicalMinimum, Span<double> target)
     {
         for (int i = 0; i < target.Length; i++)
         {

@@ -4,7 +4,7 @@ namespace Coupling.Formats;
 /// A continuous multichannel recording at one sampling rate, in physical units, with its events.
 /// Samples are channel-major: <c>Samples[c][s]</c> is channel c at sample s.
 /// </summary>
-public sealed class Recording
+public sealed class Recording : ISampleSource
 {
     /// <summary>Creates a recording; every channel must have the same number of samples.</summary>
     public Recording(string source, double sampleRate, IReadOnlyList<ChannelInfo> channels, double[][] samples,
@@ -48,6 +48,14 @@ public sealed class Recording
 
     /// <summary>Duration in seconds.</summary>
     public double Duration => SampleCount / SampleRate;
+
+    /// <inheritdoc/>
+    public void Read(int firstSample, int length, Span<double> target)
+    {
+        SampleSegment.Check(firstSample, length, SampleCount, Channels.Count, target.Length);
+        for (int c = 0; c < Samples.Length; c++)
+            Samples[c].AsSpan(firstSample, length).CopyTo(target.Slice(c * length, length));
+    }
 
     /// <summary>Index of the channel with the given label (ordinal, case-sensitive), or -1.</summary>
     public int IndexOf(string label)

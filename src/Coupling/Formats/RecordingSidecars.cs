@@ -53,17 +53,37 @@ public static class RecordingSidecars
         IReadOnlyList<ChannelsTsvEntry>? channels = null, IReadOnlyList<ElectrodesTsvEntry>? electrodes = null,
         bool keepBad = false)
     {
-        var notes = new List<string>(recording.Notes);
+        var kept = ApplyToChannels(recording.Channels, recording.Notes, channels, electrodes, keepBad);
+        var samples = kept.Indices.Select(c => recording.Samples[c]).ToArray();
+        var newEvents = events is null ? recording.Events : SortEvents(events);
+        return new Recording(recording.Source, recording.SampleRate, kept.Channels, samples, newEvents, kept.Notes);
+    }
+
+    /// <summary>
+    /// The channel part of <see cref="Apply"/>, for a recording whose samples are not in memory: which channels remain
+    /// and how they are described, with the same notes.
+    /// </summary>
+    /// <param name="recordingChannels">The recording's channels as read.</param>
+    /// <param name="recordingNotes">The recording's notes as read.</param>
+    /// <param name="channels">channels.tsv rows, or null.</param>
+    /// <param name="electrodes">electrodes.tsv rows, or null.</param>
+    /// <param name="keepBad">Keep channels whose status is "bad".</param>
+    /// <returns>The kept channels, their indices and the notes.</returns>
+    public static KeptChannels ApplyToChannels(IReadOnlyList<ChannelInfo> recordingChannels, IReadOnlyList<string> recordingNotes,
+        IReadOnlyList<ChannelsTsvEntry>? channels = null, IReadOnlyList<ElectrodesTsvEntry>? electrodes = null,
+        bool keepBad = false)
+    {
+        var notes = new List<string>(recordingNotes);
         var byName = channels?.ToDictionary(c => c.Name, StringComparer.Ordinal);
         var positions = new Dictionary<string, ChannelPosition?>(StringComparer.Ordinal);
         foreach (var e in electrodes ?? []) positions.TryAdd(e.Name, e.Position);
 
         var kept = new List<ChannelInfo>();
-        var samples = new List<double[]>();
+        var indices = new List<int>();
         var missing = new List<string>();
-        for (int c = 0; c < recording.Channels.Count; c++)
+        for (int c = 0; c < recordingChannels.Count; c++)
         {
-            var ch = recording.Channels[c];
+            var ch = recordingChannels[c];
             if (byName is not null)
             {
                 if (byName.TryGetValue(ch.Label, out var row))
@@ -80,11 +100,11 @@ public static class RecordingSidecars
             if (positions.TryGetValue(ch.Label, out var p) && p is not null)
                 ch = ch with { Position = p };
             kept.Add(ch);
-            samples.Add(recording.Samples[c]);
+            indices.Add(c);
         }
         if (missing.Count > 0)
             notes.Add($"Channels not listed in channels.tsv, kept as read: {string.Join(", ", missing)}.");
-        var labels = recording.Channels.Select(c => c.Label).ToHashSet(StringComparer.Ordinal);
+        var labels = recordingChannels.Select(c => c.Label).ToHashSet(StringComparer.Ordinal);
         var extra = (channels ?? []).Select(c => c.Name).Where(n => !labels.Contains(n)).ToList();
         if (extra.Count > 0)
             notes.Add($"channels.tsv lists channels the recording does not have: {string.Join(", ", extra)}.");
@@ -94,7 +114,10 @@ public static class RecordingSidecars
             if (unplaced.Count > 0)
                 notes.Add($"No position in electrodes.tsv for: {string.Join(", ", unplaced)}.");
         }
-        var newEvents = events is null ? recording.Events : events.OrderBy(e => e.Onset).ToArray();
-        return new Recording(recording.Source, recording.SampleRate, kept, samples.ToArray(), newEvents, notes);
+        return new KeptChannels(indices.ToArray(), kept.ToArray(), notes);
     }
+
+    /// <summary>Events in onset order (stable: events with equal onsets keep their order), as <see cref="Apply"/> uses them.</summary>
+    /// <param name="events">Events in any order.</param>
+    public static IReadOnlyList<RecordingEvent> SortEvents(IReadOnlyList<RecordingEvent> events) => events.OrderBy(e => e.Onset).ToArray();
 }

@@ -20,24 +20,48 @@ public static class InputLoader
         if (ext == ".npy") return LoadEpochs(plan);
 
         var sidecars = RecordingSidecars.FindBesides(path);
-        var recording = ext == ".edf" ? EdfReader.Read(path, plan.Channels) : CsvRecording.Read(path, plan.SampleRate!.Value);
-        if (ext == ".csv" && plan.Channels is not null) recording = Select(recording, plan.Channels);
+        if (ext == ".edf") return LoadEdf(plan, sidecars);
+        var recording = CsvRecording.Read(path, plan.SampleRate!.Value);
+        if (plan.Channels is not null) recording = Select(recording, plan.Channels);
 
         string? eventsFile = plan.Events ?? sidecars.Events;
         IReadOnlyList<RecordingEvent>? events = eventsFile is null ? null : EventsTsv.Read(eventsFile);
-        if (events is null && ext == ".csv")
+        if (events is null)
             throw new InputException($"{plan.Source}: events: a CSV recording carries no events; give an events.tsv (onset, duration, trial_type) in 'events' or beside {path}.");
         recording = RecordingSidecars.Apply(recording, events,
             sidecars.Channels is null ? null : ChannelsTsv.Read(sidecars.Channels),
             sidecars.Electrodes is null ? null : ElectrodesTsv.Read(sidecars.Electrodes),
             keepBad: plan.Channels is not null);
 
-        var flat = RecordingChecks.FindFlatChannels(recording);
+        CheckChannels(path, RecordingChecks.FindFlatChannels(recording), recording.Channels.Count);
+        return LoadedInput.FromRecording(recording);
+    }
+
+    /// <summary>
+    /// EDF input is read a segment at a time: the file is streamed once for its events and flat channels, and each
+    /// condition's trials are read when they are cut, so memory grows with the trials, not the recording.
+    /// </summary>
+    private static LoadedInput LoadEdf(Plan plan, SidecarFiles sidecars)
+    {
+        string path = plan.Recording;
+        var reader = EdfSegmentReader.Open(path, plan.Channels);
+        string? eventsFile = plan.Events ?? sidecars.Events;
+        var events = eventsFile is null ? reader.Events : RecordingSidecars.SortEvents(EventsTsv.Read(eventsFile));
+        var kept = RecordingSidecars.ApplyToChannels(reader.Channels, reader.Notes,
+            sidecars.Channels is null ? null : ChannelsTsv.Read(sidecars.Channels),
+            sidecars.Electrodes is null ? null : ElectrodesTsv.Read(sidecars.Electrodes),
+            keepBad: plan.Channels is not null);
+        var samples = reader.WithChannels(kept.Indices, kept.Channels);
+        CheckChannels(path, samples.FindFlatChannels(), samples.Channels.Count);
+        return LoadedInput.FromSource(samples, events, kept.Notes);
+    }
+
+    private static void CheckChannels(string path, IReadOnlyList<string> flat, int channelCount)
+    {
         if (flat.Count > 0)
             throw new InputException($"{path}: channel(s) {string.Join(", ", flat)} are flat (every sample equal): phase and envelope are undefined there; leave them out with 'channels' in the plan.");
-        if (recording.Channels.Count < 2)
-            throw new InputException($"{path}: connectivity needs at least 2 channels, the selection has {recording.Channels.Count}.");
-        return LoadedInput.FromRecording(recording);
+        if (channelCount < 2)
+            throw new InputException($"{path}: connectivity needs at least 2 channels, the selection has {channelCount}.");
     }
 
     private static Recording Select(Recording recording, IReadOnlyList<string> labels)

@@ -11,13 +11,15 @@ namespace Coupling.Pipeline;
 public sealed class LoadedInput
 {
     private readonly Recording? _recording;
+    private readonly ISampleSource? _samples;
+    private readonly IReadOnlyList<RecordingEvent>? _events;
     private readonly double[]? _epochs;
     private readonly int _epochCount, _epochSamples;
     private readonly double _firstSampleTime;
     private readonly IReadOnlyList<string>? _epochLabels;
 
     private LoadedInput(string source, double sampleRate, IReadOnlyList<ChannelInfo> channels, IReadOnlyList<string> eventLabels,
-        IReadOnlyList<string> notes, Recording? recording, double[]? epochs, int epochCount, int epochSamples,
+        IReadOnlyList<string> notes, Recording? recording, ISampleSource? samples, IReadOnlyList<RecordingEvent>? events, double[]? epochs, int epochCount, int epochSamples,
         double firstSampleTime, IReadOnlyList<string>? epochLabels)
     {
         Source = source;
@@ -26,6 +28,8 @@ public sealed class LoadedInput
         EventLabels = eventLabels;
         Notes = notes;
         _recording = recording;
+        _samples = samples;
+        _events = events;
         _epochs = epochs;
         _epochCount = epochCount;
         _epochSamples = epochSamples;
@@ -36,12 +40,20 @@ public sealed class LoadedInput
     /// <summary>A continuous recording with its events.</summary>
     public static LoadedInput FromRecording(Recording recording) =>
         new(recording.Source, recording.SampleRate, recording.Channels, recording.Events.Select(e => e.Label).ToArray(),
-            recording.Notes, recording, null, 0, 0, 0, null);
+            recording.Notes, recording, recording, recording.Events, null, 0, 0, 0, null);
+
+    /// <summary>A continuous recording read a segment at a time (e.g. an EDF file), with its events.</summary>
+    /// <param name="samples">The samples of the analysed channels.</param>
+    /// <param name="events">Event markers, sorted by onset.</param>
+    /// <param name="notes">Messages from reading.</param>
+    public static LoadedInput FromSource(ISampleSource samples, IReadOnlyList<RecordingEvent> events, IReadOnlyList<string> notes) =>
+        new(samples.Source, samples.SampleRate, samples.Channels, events.Select(e => e.Label).ToArray(),
+            notes, null, samples, events, null, 0, 0, 0, null);
 
     /// <summary>Epochs in C order (epoch, channel, sample) with one event label per epoch.</summary>
     public static LoadedInput FromEpochs(string source, double sampleRate, IReadOnlyList<ChannelInfo> channels, double[] data,
         int epochCount, int epochSamples, double firstSampleTime, IReadOnlyList<string> epochLabels) =>
-        new(source, sampleRate, channels, epochLabels, Array.Empty<string>(), null, data, epochCount, epochSamples,
+        new(source, sampleRate, channels, epochLabels, Array.Empty<string>(), null, null, null, data, epochCount, epochSamples,
             firstSampleTime, epochLabels);
 
     /// <summary>Where the data came from.</summary>
@@ -59,13 +71,14 @@ public sealed class LoadedInput
     /// <summary>Messages from reading (e.g. signals left out).</summary>
     public IReadOnlyList<string> Notes { get; }
 
-    /// <summary>The continuous recording, or null for epochs input.</summary>
+    /// <summary>The continuous recording when it is held in memory (CSV input), or null for input read a segment at a
+    /// time (EDF) and for epochs input.</summary>
     public Recording? Recording => _recording;
 
     /// <summary>The padded trials of <paramref name="condition"/>.</summary>
     public TrialSet Trials(ConditionSpec condition, TimeRange span, int padSamples) =>
-        _recording is not null
-            ? TrialCutter.Cut(_recording, condition, span, padSamples)
+        _samples is not null
+            ? TrialCutter.Cut(_samples, _events!, condition, span, padSamples)
             : EpochTrials.Select(Source, _epochs!, _epochCount, Channels.Select(c => c.Label).ToArray(), _epochSamples,
                 SampleRate, _firstSampleTime, _epochLabels!, condition, span, padSamples);
 }

@@ -21,39 +21,85 @@ public static class TrialCutter
     /// <param name="condition">The condition whose event labels start trials.</param>
     /// <param name="span">Trial span in seconds relative to onset.</param>
     /// <param name="padSamples">Padding samples at each end.</param>
-    public static TrialSet Cut(Recording recording, ConditionSpec condition, TimeRange span, int padSamples)
+    public static TrialSet Cut(Recording recording, ConditionSpec condition, TimeRange span, int padSamples) =>
+        Cut(recording, recording.Events, condition, span, padSamples);
+
+    /// <summary>
+    /// Cuts one trial per event of the condition from a source read a segment at a time, exactly as
+    /// <see cref="Cut(Recording, ConditionSpec, TimeRange, int)"/> does from a recording in memory: the same samples,
+    /// padding, dropped trials and messages. Each trial is read once, all channels together; only the trials are held.
+    /// </summary>
+    /// <param name="source">The samples (selected channels only).</param>
+    /// <param name="events">Event markers, sorted by onset.</param>
+    /// <param name="condition">The condition whose event labels start trials.</param>
+    /// <param name="span">Trial span in seconds relative to onset.</param>
+    /// <param name="padSamples">Padding samples at each end.</param>
+    public static TrialSet Cut(ISampleSource source, IReadOnlyList<RecordingEvent> events, ConditionSpec condition, TimeRange span, int padSamples)
     {
-        double rate = recording.SampleRate;
+        double rate = source.SampleRate;
+        int sampleCount = source.SampleCount;
+        double duration = sampleCount / rate;
         int length = (int)Math.Round(span.Length * rate);
         int offset = (int)Math.Round(span.Start * rate);
         if (length < 2)
-            throw new InputException($"{recording.Source}: the trial span {Fmt(span.Start)}..{Fmt(span.End)} s holds fewer than 2 samples at {Fmt(rate)} Hz.");
-        if (length > recording.SampleCount)
-            throw new InputException($"{recording.Source}: the trial span ({Fmt(span.Length)} s) is longer than the recording ({Fmt(recording.Duration)} s).");
+            throw new InputException($"{source.Source}: the trial span {Fmt(span.Start)}..{Fmt(span.End)} s holds fewer than 2 samples at {Fmt(rate)} Hz.");
+        if (length > sampleCount)
+            throw new InputException($"{source.Source}: the trial span ({Fmt(span.Length)} s) is longer than the recording ({Fmt(duration)} s).");
         int total = length + 2 * padSamples;
-        int channels = recording.Channels.Count;
+        int channels = source.Channels.Count;
         var labels = new HashSet<string>(condition.EventLabels, StringComparer.Ordinal);
         var starts = new List<int>();
         var onsets = new List<double>();
         var dropped = new List<string>();
-        foreach (var e in recording.Events)
+        foreach (var e in events)
         {
             if (!labels.Contains(e.Label)) continue;
             int first = (int)Math.Round(e.Onset * rate) + offset;
-            if (first < 0 || first + length > recording.SampleCount)
+            if (first < 0 || first + length > sampleCount)
             {
-                dropped.Add($"{condition.Name}: event '{e.Label}' at {Fmt(e.Onset)} s: trial {Fmt(e.Onset + span.Start)}..{Fmt(e.Onset + span.End)} s runs past the recording (0..{Fmt(recording.Duration)} s)");
+                dropped.Add($"{condition.Name}: event '{e.Label}' at {Fmt(e.Onset)} s: trial {Fmt(e.Onset + span.Start)}..{Fmt(e.Onset + span.End)} s runs past the recording (0..{Fmt(duration)} s)");
                 continue;
             }
             starts.Add(first - padSamples);
             onsets.Add(e.Onset);
         }
         var data = new double[(long)starts.Count * channels * total];
+        double[]? scratch = null;
         for (int n = 0; n < starts.Count; n++)
-            for (int c = 0; c < channels; c++)
-                CopyReflected(recording.Samples[c], starts[n], data.AsSpan((n * channels + c) * total, total));
-        return new TrialSet(condition.Name, recording.Channels.Select(ch => ch.Label).ToArray(), rate, starts.Count,
+            ReadReflected(source, starts[n], total, data.AsSpan(n * channels * total, channels * total), ref scratch);
+        return new TrialSet(condition.Name, source.Channels.Select(ch => ch.Label).ToArray(), rate, starts.Count,
             total, padSamples, offset / rate, data, onsets, dropped);
+    }
+
+    /// <summary>
+    /// Reads samples <c>start .. start + length - 1</c> of every channel into <paramref name="target"/> (channel-major),
+    /// reflecting indices that fall outside the source as <see cref="CopyReflected"/> does. Only the samples the
+    /// reflected indices reach are read; <paramref name="scratch"/> is grown as needed and reused.
+    /// </summary>
+    internal static void ReadReflected(ISampleSource source, int start, int length, Span<double> target, ref double[]? scratch)
+    {
+        int n = source.SampleCount;
+        if (start >= 0 && start + length <= n)
+        {
+            source.Read(start, length, target);
+            return;
+        }
+        int lo = int.MaxValue, hi = -1;
+        for (int i = 0; i < length; i++)
+        {
+            int j = Reflect(start + i, n);
+            lo = Math.Min(lo, j);
+            hi = Math.Max(hi, j);
+        }
+        int width = hi - lo + 1, channels = source.Channels.Count;
+        if (scratch is null || scratch.Length < channels * width) scratch = new double[channels * width];
+        source.Read(lo, width, scratch.AsSpan(0, channels * width));
+        for (int c = 0; c < channels; c++)
+        {
+            var row = scratch.AsSpan(c * width, width);
+            var to = target.Slice(c * length, length);
+            for (int i = 0; i < length; i++) to[i] = row[Reflect(start + i, n) - lo];
+        }
     }
 
     /// <summary>Copies <c>source[start .. start + target.Length)</c>, reflecting indices that fall outside the source.</summary>
