@@ -50,14 +50,14 @@ public static class AnalysisRunner
         int pad = decompositions.Max(d => d.PadSamples);
 
         // Check every condition first, so that input problems (unknown labels, too few trials) surface before any long
-        // step. The trials are counted on an unpadded cut that is dropped at once (padding never changes which trials
-        // fit); each condition is cut again, padded, when its turn comes, so only one condition's trials are in memory.
+        // step. Trials are only counted here; each condition is cut when its turn comes, so only one condition's trials
+        // are in memory.
         foreach (var condition in plan.Conditions)
         {
             foreach (var label in condition.EventLabels)
                 if (!input.EventLabels.Contains(label))
                     throw new InputException($"{plan.Source}: conditions.{condition.Name}: event label '{label}' does not occur in {input.Source}; labels there: {string.Join(", ", input.EventLabels.Distinct().Order(StringComparer.Ordinal))}.");
-            int count = input.Trials(condition, plan.Trial, 0).TrialCount;
+            int count = input.TrialCount(condition, plan.Trial);
             InPlan(plan, "surrogates", () => { SurrogateTest.CheckFeasible(count, plan.Surrogates, condition.Name); return 0; });
         }
 

@@ -77,6 +77,16 @@ public sealed class LoadedInput
 
     /// <summary>The padded trials of <paramref name="condition"/>.</summary>
     public TrialSet Trials(ConditionSpec condition, TimeRange span, int padSamples) =>
+        TrialsOf(condition, span, padSamples);
+
+    /// <summary>
+    /// The number of trials <see cref="Trials"/> keeps for <paramref name="condition"/>, without reading samples from
+    /// a recording (epochs, already in memory, are selected unpadded).
+    /// </summary>
+    public int TrialCount(ConditionSpec condition, TimeRange span) =>
+        _samples is not null ? TrialCutter.Count(_samples, _events!, condition, span) : TrialsOf(condition, span, 0).TrialCount;
+
+    private TrialSet TrialsOf(ConditionSpec condition, TimeRange span, int padSamples) =>
         _samples is not null
             ? TrialCutter.Cut(_samples, _events!, condition, span, padSamples)
             : EpochTrials.Select(Source, _epochs!, _epochCount, Channels.Select(c => c.Label).ToArray(), _epochSamples,

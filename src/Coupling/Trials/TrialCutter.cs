@@ -36,6 +36,29 @@ public static class TrialCutter
     /// <param name="padSamples">Padding samples at each end.</param>
     public static TrialSet Cut(ISampleSource source, IReadOnlyList<RecordingEvent> events, ConditionSpec condition, TimeRange span, int padSamples)
     {
+        var located = Locate(source, events, condition, span);
+        int total = located.Length + 2 * padSamples;
+        int channels = source.Channels.Count;
+        var data = new double[(long)located.Starts.Count * channels * total];
+        double[]? scratch = null;
+        for (int n = 0; n < located.Starts.Count; n++)
+            ReadReflected(source, located.Starts[n] - padSamples, total, data.AsSpan(n * channels * total, channels * total), ref scratch);
+        return new TrialSet(condition.Name, source.Channels.Select(ch => ch.Label).ToArray(), source.SampleRate, located.Starts.Count,
+            total, padSamples, located.Offset / source.SampleRate, data, located.Onsets, located.Dropped);
+    }
+
+    /// <summary>
+    /// The number of trials <see cref="Cut(ISampleSource, IReadOnlyList{RecordingEvent}, ConditionSpec, TimeRange, int)"/>
+    /// would keep, found from the events alone without reading any sample (padding never changes which trials fit).
+    /// </summary>
+    /// <exception cref="InputException">The trial span is shorter than 2 samples or longer than the recording.</exception>
+    public static int Count(ISampleSource source, IReadOnlyList<RecordingEvent> events, ConditionSpec condition, TimeRange span) =>
+        Locate(source, events, condition, span).Starts.Count;
+
+    private sealed record Located(int Length, int Offset, List<int> Starts, List<double> Onsets, List<string> Dropped);
+
+    private static Located Locate(ISampleSource source, IReadOnlyList<RecordingEvent> events, ConditionSpec condition, TimeRange span)
+    {
         double rate = source.SampleRate;
         int sampleCount = source.SampleCount;
         double duration = sampleCount / rate;
@@ -45,30 +68,21 @@ public static class TrialCutter
             throw new InputException($"{source.Source}: the trial span {Fmt(span.Start)}..{Fmt(span.End)} s holds fewer than 2 samples at {Fmt(rate)} Hz.");
         if (length > sampleCount)
             throw new InputException($"{source.Source}: the trial span ({Fmt(span.Length)} s) is longer than the recording ({Fmt(duration)} s).");
-        int total = length + 2 * padSamples;
-        int channels = source.Channels.Count;
         var labels = new HashSet<string>(condition.EventLabels, StringComparer.Ordinal);
-        var starts = new List<int>();
-        var onsets = new List<double>();
-        var dropped = new List<string>();
+        var located = new Located(length, offset, [], [], []);
         foreach (var e in events)
         {
             if (!labels.Contains(e.Label)) continue;
             int first = (int)Math.Round(e.Onset * rate) + offset;
             if (first < 0 || first + length > sampleCount)
             {
-                dropped.Add($"{condition.Name}: event '{e.Label}' at {Fmt(e.Onset)} s: trial {Fmt(e.Onset + span.Start)}..{Fmt(e.Onset + span.End)} s runs past the recording (0..{Fmt(duration)} s)");
+                located.Dropped.Add($"{condition.Name}: event '{e.Label}' at {Fmt(e.Onset)} s: trial {Fmt(e.Onset + span.Start)}..{Fmt(e.Onset + span.End)} s runs past the recording (0..{Fmt(duration)} s)");
                 continue;
             }
-            starts.Add(first - padSamples);
-            onsets.Add(e.Onset);
+            located.Starts.Add(first);
+            located.Onsets.Add(e.Onset);
         }
-        var data = new double[(long)starts.Count * channels * total];
-        double[]? scratch = null;
-        for (int n = 0; n < starts.Count; n++)
-            ReadReflected(source, starts[n], total, data.AsSpan(n * channels * total, channels * total), ref scratch);
-        return new TrialSet(condition.Name, source.Channels.Select(ch => ch.Label).ToArray(), rate, starts.Count,
-            total, padSamples, offset / rate, data, onsets, dropped);
+        return located;
     }
 
     /// <summary>

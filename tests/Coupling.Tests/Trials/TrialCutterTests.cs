@@ -95,4 +95,14 @@ public sealed class TrialCutterTests
         Assert.Contains("index.edf", e.Message);
         Assert.Contains("longer than the recording", e.Message);
     }
+
+    [Fact]
+    public void Counting_the_trials_agrees_with_cutting_them_whatever_the_padding()
+    {
+        var recording = IndexRecording((0.2, "cue"), (0.5, "cue"), (4.0, "cue"), (9.0, "cue"), (9.5, "cue"), (5.0, "other"));
+        int counted = TrialCutter.Count(recording, recording.Events, Cue, Span);
+        Assert.Equal(3, counted);
+        foreach (int pad in new[] { 0, Pad, 5000 })
+            Assert.Equal(counted, TrialCutter.Cut(recording, Cue, Span, pad).TrialCount);
+    }
 }
