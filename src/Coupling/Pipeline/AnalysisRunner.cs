@@ -1,3 +1,4 @@
+using System.Globalization;
 using System.Diagnostics;
 using Coupling.Measures;
 using Coupling.Plans;
@@ -67,8 +68,12 @@ public static class AnalysisRunner
         if (plan.Surrogates < needed)
         {
             int k = (int)Math.Ceiling(pairs / (plan.Q * (plan.Surrogates + 1)));
-            warnings.Add($"With {plan.Surrogates} surrogates the smallest attainable p is 1/{plan.Surrogates + 1}; across {pairs} pairs at q = {plan.Q:G3} " +
-                $"a pair can pass the correction only if at least {k} pairs reach that p. Use at least {needed} surrogates for a single coupled pair to be detectable.");
+            string reach = k > pairs
+                ? $"no pair can pass the correction whatever the data (that would take {k} pairs at that p, and only {pairs} are tested)"
+                : $"a pair can pass the correction only if at least {k} pairs reach that p";
+            warnings.Add(string.Create(CultureInfo.InvariantCulture,
+                $"With {plan.Surrogates} surrogates the smallest attainable p is 1/{plan.Surrogates + 1}; across {pairs} pairs at q = {plan.Q:G3} {reach}. " +
+                $"Use at least {needed} surrogates for a single coupled pair to be detectable."));
         }
 
         var results = new List<PairResult>();
