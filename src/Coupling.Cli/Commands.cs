@@ -60,7 +60,8 @@ internal static class Commands
         string ext = Path.GetExtension(file).ToLowerInvariant();
         RecordingSummary summary = ext switch
         {
-            ".edf" => RecordingSummary.Describe(EdfReader.ReadHeader(file), EdfReader.ReadEvents(file)),
+            ".edf" => RecordingSummary.Describe(EdfReader.ReadHeader(file), EdfReader.ReadEvents(file))
+                .WithSidecars(RecordingSidecars.FindBesides(file)),
             ".csv" => RecordingSummary.Describe(CsvRecording.Read(file, rate ?? throw new InputException($"{file}: a CSV file carries no sampling rate; give --rate in Hz.")), "CSV"),
             ".npy" => throw new InputException($"{file}: an NPY array holds no channel names or rate; use it through a plan with 'epochs' and 'sample_rate'. Its shape: ({string.Join(", ", NpyArray.Read(file).Shape)})."),
             _ => throw new InputException($"{file}: unknown extension '{ext}'; expected .edf, .csv or .npy."),

@@ -59,6 +59,33 @@ public sealed record RecordingSummary(
             Count(recording.Events), recording.Notes);
     }
 
+    /// <summary>
+    /// The summary as the analysis would see the recording with its BIDS sidecars: channel types and units from
+    /// channels.tsv (channels marked bad noted), event counts from events.tsv; each sidecar used is named in the notes.
+    /// </summary>
+    /// <param name="sidecars">Sidecar files, e.g. from <see cref="RecordingSidecars.FindBesides"/>.</param>
+    public RecordingSummary WithSidecars(SidecarFiles sidecars)
+    {
+        var notes = new List<string>(Notes);
+        var channels = Channels;
+        if (sidecars.Channels is { } channelsFile)
+        {
+            var rows = ChannelsTsv.Read(channelsFile).ToDictionary(r => r.Name, StringComparer.Ordinal);
+            channels = Channels.Select(c => rows.TryGetValue(c.Label, out var row)
+                ? c with { Type = row.Type, Unit = row.Units } : c).ToArray();
+            var bad = rows.Values.Where(r => r.IsBad).Select(r => r.Name).ToArray();
+            notes.Add($"Channel types and units from {Path.GetFileName(channelsFile)}.");
+            if (bad.Length > 0) notes.Add($"Marked bad there (left out unless a plan names them): {string.Join(", ", bad)}.");
+        }
+        var counts = EventCounts;
+        if (sidecars.Events is { } eventsFile)
+        {
+            counts = Count(EventsTsv.Read(eventsFile));
+            notes.Add($"Events from {Path.GetFileName(eventsFile)}.");
+        }
+        return this with { Channels = channels, EventCounts = counts, Notes = notes };
+    }
+
     private static EventCount[] Count(IReadOnlyList<RecordingEvent> events) =>
         events.GroupBy(e => e.Label, StringComparer.Ordinal)
             .Select(g => new EventCount(g.Key, g.Count()))

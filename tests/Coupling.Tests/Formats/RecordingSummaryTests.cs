@@ -36,4 +36,23 @@ public class RecordingSummaryTests
         Assert.Contains(lines, l => l.Contains("LFP") && l.Contains("250"));
         Assert.Contains("  left out: b", lines);
     }
+
+    [Fact]
+    public void Sidecars_set_channel_types_units_and_event_counts_and_are_named_in_the_notes()
+    {
+        // BIDS channels.tsv (name, type, units, status) and events.tsv (onset, duration, trial_type).
+        using var dir = new TempFolder();
+        File.WriteAllText(dir.File("channels.tsv"), "name\ttype\tunits\tstatus\na\tSEEG\tuV\tgood\nb\tSEEG\tuV\tbad\n");
+        File.WriteAllText(dir.File("events.tsv"), "onset\tduration\ttrial_type\n0.5\t0\tgo\n1.0\tn/a\tgo\n1.5\t0\tstop\n");
+        var rec = new Recording("sim", 100, [new ChannelInfo("a", "unknown", "unknown"), new ChannelInfo("b", "unknown", "unknown")],
+            [new double[250], new double[250]], [new RecordingEvent(0, 0, "x")]);
+        var summary = RecordingSummary.Describe(rec, "EDF+C")
+            .WithSidecars(new SidecarFiles(dir.File("events.tsv"), dir.File("channels.tsv"), null));
+        Assert.Equal(["SEEG", "SEEG"], summary.Channels.Select(c => c.Type));
+        Assert.Equal(["uV", "uV"], summary.Channels.Select(c => c.Unit));
+        Assert.Equal([new EventCount("go", 2), new EventCount("stop", 1)], summary.EventCounts);
+        Assert.Contains("Channel types and units from channels.tsv.", summary.Notes);
+        Assert.Contains("Events from events.tsv.", summary.Notes);
+        Assert.Contains(summary.Notes, n => n.Contains("bad") && n.EndsWith(": b.", StringComparison.Ordinal));
+    }
 }
