@@ -51,7 +51,17 @@ public static class InputLoader
             sidecars.Channels is null ? null : ChannelsTsv.Read(sidecars.Channels),
             sidecars.Electrodes is null ? null : ElectrodesTsv.Read(sidecars.Electrodes),
             keepBad: plan.Channels is not null);
-        var samples = reader.WithChannels(kept.Indices, kept.Channels);
+        var indices = kept.Indices.ToArray();
+        var channels = kept.Channels.ToArray();
+        if (plan.Channels is not null)
+        {
+            // The reader keeps the file's order; results follow the order the plan lists the channels in.
+            var order = plan.Channels.Select((label, i) => (label, i)).ToDictionary(x => x.label, x => x.i, StringComparer.Ordinal);
+            var sorted = Enumerable.Range(0, channels.Length).OrderBy(k => order[channels[k].Label]).ToArray();
+            indices = sorted.Select(k => indices[k]).ToArray();
+            channels = sorted.Select(k => channels[k]).ToArray();
+        }
+        var samples = reader.WithChannels(indices, channels);
         CheckChannels(path, samples.FindFlatChannels(), samples.Channels.Count);
         return LoadedInput.FromSource(samples, events, kept.Notes);
     }

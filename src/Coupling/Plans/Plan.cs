@@ -18,7 +18,7 @@ public sealed record Plan
     /// <summary>BIDS-style events.tsv to use instead of the recording's own annotations; null to use those (or a sidecar found beside the recording).</summary>
     public string? Events { get; init; }
 
-    /// <summary>Channels to analyse, in order; null for every channel at the recording's main sampling rate.</summary>
+    /// <summary>Channels to analyse, in the order results list them; null for every channel at the recording's main sampling rate, in its order.</summary>
     public IReadOnlyList<string>? Channels { get; init; }
 
     /// <summary>Sampling rate in Hz, required for CSV and NPY input, ignored for EDF.</summary>
