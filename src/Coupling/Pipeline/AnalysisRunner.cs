@@ -94,7 +94,7 @@ public static class AnalysisRunner
                     workers > 0 ? workers : null, stageProgress, cancellationToken);
                 foreach (var m in tested)
                 {
-                    var corrected = FalseDiscoveryRate.BenjaminiHochberg(m.P);
+                    var corrected = FalseDiscoveryRate.BenjaminiHochbergOfDefined(m.P);
                     var significant = corrected.Select(q => q <= plan.Q).ToArray();
                     results.Add(new PairResult(trials.Condition, plan.Bands[bi].Name, MeasureCatalog.Key(m.Measure), trials.Channels,
                         m.Observed, m.Z, m.P, corrected, significant, input.Channels.Select(c => c.Position).ToArray()));

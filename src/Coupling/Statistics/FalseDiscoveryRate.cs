@@ -40,6 +40,25 @@ public static class FalseDiscoveryRate
     }
 
     /// <summary>
+    /// <see cref="BenjaminiHochberg"/> over the defined p-values only: a NaN p (a pair whose measure is undefined, e.g.
+    /// a channel with no amplitude in the band) stays NaN and is not counted in m, so it neither passes nor makes the
+    /// correction stricter for the others.
+    /// </summary>
+    /// <exception cref="ArgumentException">A p-value outside [0, 1].</exception>
+    public static double[] BenjaminiHochbergOfDefined(ReadOnlySpan<double> p)
+    {
+        var defined = new List<int>(p.Length);
+        for (int i = 0; i < p.Length; i++) if (!double.IsNaN(p[i])) defined.Add(i);
+        var result = new double[p.Length];
+        Array.Fill(result, double.NaN);
+        var values = new double[defined.Count];
+        for (int k = 0; k < defined.Count; k++) values[k] = p[defined[k]];
+        var adjusted = BenjaminiHochberg(values);
+        for (int k = 0; k < defined.Count; k++) result[defined[k]] = adjusted[k];
+        return result;
+    }
+
+    /// <summary>
     /// Which hypotheses the Benjamini-Hochberg step-up procedure rejects at false discovery rate
     /// <paramref name="q"/>: those whose adjusted p-value is at or below q.
     /// </summary>

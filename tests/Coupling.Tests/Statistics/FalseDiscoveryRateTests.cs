@@ -90,4 +90,17 @@ public class FalseDiscoveryRateTests
         Assert.Throws<ArgumentOutOfRangeException>(() => FalseDiscoveryRate.Reject([0.1], 0));
         Assert.Empty(FalseDiscoveryRate.BenjaminiHochberg([]));
     }
+
+    [Fact]
+    public void Undefined_p_values_stay_undefined_and_are_not_counted_in_the_family()
+    {
+        // Step-up over the three defined values (Benjamini & Hochberg 1995), by hand: sorted 0.01, 0.03, 0.04 with
+        // m = 3 give 3·0.01/1 = 0.03, 3·0.03/2 = 0.045 and 3·0.04/3 = 0.04; the running minimum from the top makes
+        // them 0.03, 0.04, 0.04.
+        var adjusted = FalseDiscoveryRate.BenjaminiHochbergOfDefined([0.01, double.NaN, 0.04, 0.03]);
+        Assert.Equal(0.03, adjusted[0], 15);
+        Assert.True(double.IsNaN(adjusted[1]));
+        Assert.Equal(0.04, adjusted[2], 15);
+        Assert.Equal(0.04, adjusted[3], 15);
+    }
 }
