@@ -19,19 +19,25 @@ internal static class Commands
         PrintOutcome(outcome, output);
 
         var truth = TruthFile.Read(paths.Truth);
-        var lines = TruthCheck.Compare(truth, outcome.Results);
+        var lines = TruthCheck.Compare(truth, outcome.Results).Concat(TruthCheck.CompareContrasts(truth, outcome.Contrasts)).ToArray();
         output.WriteLine();
-        output.WriteLine($"Ground truth ({paths.Truth}): {lines.Count(l => l.Agrees)} of {lines.Count} expectations met.");
-        foreach (var group in lines.GroupBy(l => (l.ChannelA, l.ChannelB, l.Kind, l.Band)))
+        output.WriteLine($"Ground truth ({paths.Truth}): {lines.Count(l => l.Agrees)} of {lines.Length} expectations met.");
+        foreach (var group in lines.GroupBy(l => (l.ChannelA, l.ChannelB, l.Kind, l.Band, Contrast: l.Condition.Contains(" vs ", StringComparison.Ordinal))))
         {
             var bad = group.Where(l => !l.Agrees).ToArray();
             string verdict = bad.Length == 0 ? "as expected" : "NOT as expected: " + string.Join("; ", bad.Select(l =>
                 $"{l.Condition}/{l.Measure} {(l.Significant ? "significant" : "not significant")} (corrected p {l.PCorrected.ToString("G3", CultureInfo.InvariantCulture)})"));
-            output.WriteLine($"  {group.Key.ChannelA}-{group.Key.ChannelB} {group.Key.Kind} ({group.Key.Band}): {verdict}");
+            string what = group.Key.Contrast ? $"difference {group.First().Condition}" : "per condition";
+            output.WriteLine($"  {group.Key.ChannelA}-{group.Key.ChannelB} {group.Key.Kind} ({group.Key.Band}), {what}: {verdict}");
         }
         var unexpected = TruthCheck.UnexpectedDiscoveries(truth, outcome.Results);
         int found = unexpected.Sum(u => u.Unexpected), tested = unexpected.Sum(u => u.Tested);
         output.WriteLine($"  pairs with nothing built in: {found} of {tested} tests significant (false discovery rate controlled per table at q = {plan.Q.ToString("G3", CultureInfo.InvariantCulture)})");
+        if (outcome.Contrasts.Count > 0)
+        {
+            var differences = TruthCheck.UnexpectedDiscoveries(truth, outcome.Contrasts.Select(c => c.AsDifference()).ToArray());
+            output.WriteLine($"  pairs with nothing built in, condition differences: {differences.Sum(u => u.Unexpected)} of {differences.Sum(u => u.Tested)} tests significant");
+        }
         return 0;
     }
 
@@ -90,6 +96,8 @@ internal static class Commands
         output.WriteLine($"  report:   {Path.Combine(outcome.OutputFolder, "report.md")}");
         output.WriteLine($"  edges:    {Path.Combine(outcome.OutputFolder, "edges.tsv")}");
         output.WriteLine($"  figures:  {Path.Combine(outcome.OutputFolder, "figures")}");
+        if (outcome.Contrasts.Count > 0)
+            output.WriteLine($"  contrasts: {Path.Combine(outcome.OutputFolder, "contrasts.tsv")}");
         foreach (var c in outcome.Conditions)
             output.WriteLine($"  {c.Condition}: {c.Trials} trials{(c.Dropped.Count > 0 ? $", {c.Dropped.Count} dropped (listed in the manifest)" : "")}");
         foreach (var w in outcome.Warnings) output.WriteLine($"  warning: {w}");

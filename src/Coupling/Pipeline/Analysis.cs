@@ -10,10 +10,12 @@ namespace Coupling.Pipeline;
 /// <param name="TimeSteps">Time step (samples) used per band, in band order.</param>
 /// <param name="PadSamples">Padding samples at each end of every trial.</param>
 /// <param name="Warnings">Things the reader of the results must know (e.g. too few surrogates for any discovery).</param>
+/// <param name="Contrasts">One tested difference table per contrast x band x measure, in the plan's order; empty without contrasts.</param>
 public sealed record Analysis(
     IReadOnlyList<PairResult> Results,
     IReadOnlyList<ConditionSummary> Conditions,
     IReadOnlyList<DecompositionInfo> Decompositions,
     IReadOnlyList<int> TimeSteps,
     int PadSamples,
-    IReadOnlyList<string> Warnings);
+    IReadOnlyList<string> Warnings,
+    IReadOnlyList<ContrastPairResult> Contrasts);

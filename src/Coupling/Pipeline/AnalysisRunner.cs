@@ -36,7 +36,7 @@ public static class AnalysisRunner
 
         progress?.Report(new RunProgress("writing results", 0, 0));
         var written = ResultsWriter.Write(plan, input, analysis, new RunContext(started, clock.Elapsed, commandLine, workers), progress);
-        return new RunOutcome(written, analysis.Results, analysis.Conditions, analysis.Warnings, clock.Elapsed);
+        return new RunOutcome(written, analysis.Results, analysis.Conditions, analysis.Warnings, clock.Elapsed, analysis.Contrasts);
     }
 
     /// <summary>Everything computed by a run, before it is written.</summary>
@@ -53,6 +53,7 @@ public static class AnalysisRunner
         // Check every condition first, so that input problems (unknown labels, too few trials) surface before any long
         // step. Trials are only counted here; each condition is cut when its turn comes, so only one condition's trials
         // are in memory.
+        var trialCounts = new Dictionary<string, int>(StringComparer.Ordinal);
         foreach (var condition in plan.Conditions)
         {
             foreach (var label in condition.EventLabels)
@@ -60,7 +61,14 @@ public static class AnalysisRunner
                     throw new InputException($"{plan.Source}: conditions.{condition.Name}: event label '{label}' does not occur in {input.Source}; labels there: {string.Join(", ", input.EventLabels.Distinct().Order(StringComparer.Ordinal))}.");
             int count = input.TrialCount(condition, plan.Trial);
             InPlan(plan, "surrogates", () => { SurrogateTest.CheckFeasible(count, plan.Surrogates, condition.Name); return 0; });
+            trialCounts[condition.Name] = count;
         }
+        foreach (var contrast in plan.Contrasts)
+            InPlan(plan, "contrasts", () =>
+            {
+                ConditionContrast.CheckFeasible(trialCounts[contrast.ConditionA], trialCounts[contrast.ConditionB], plan.Surrogates, contrast.Name);
+                return 0;
+            });
 
         var warnings = new List<string>();
         int pairs = Measures.PairIndex.Count(input.Channels.Count);
@@ -101,7 +109,54 @@ public static class AnalysisRunner
                 }
             }
         }
-        return new Analysis(results, summaries, decompositions.Select(d => d.Info).ToArray(), steps, pad, warnings);
+        var contrasts = Contrast(plan, input, decompositions, steps, pad, progress, workers, cancellationToken);
+        return new Analysis(results, summaries, decompositions.Select(d => d.Info).ToArray(), steps, pad, warnings, contrasts);
+    }
+
+    /// <summary>
+    /// Tests each contrast of the plan by condition-label permutation, band by band. The two conditions' trials are cut
+    /// again for each contrast (after the per-condition loop, which holds one condition at a time); in memory at once:
+    /// the raw trials of both conditions, and for one band their two narrowband sets, the pooled set (the same size
+    /// again) and per worker thread one split's data and kernel tables.
+    /// </summary>
+    private static List<ContrastPairResult> Contrast(Plan plan, LoadedInput input, IBandDecomposition[] decompositions, int[] steps,
+        int pad, IProgress<RunProgress>? progress, int workers, CancellationToken cancellationToken)
+    {
+        var results = new List<ContrastPairResult>();
+        var positions = input.Channels.Select(c => c.Position).ToArray();
+        for (int ki = 0; ki < plan.Contrasts.Count; ki++)
+        {
+            var contrast = plan.Contrasts[ki];
+            var trialsA = Cut(plan, input, contrast.ConditionA, pad);
+            var trialsB = Cut(plan, input, contrast.ConditionB, pad);
+            for (int bi = 0; bi < decompositions.Length; bi++)
+            {
+                cancellationToken.ThrowIfCancellationRequested();
+                string stage = $"{contrast.ConditionA} vs {contrast.ConditionB} / {plan.Bands[bi].Name}";
+                progress?.Report(new RunProgress($"{stage}: band isolation", 0, 0));
+                var a = NarrowbandExtractor.Extract(trialsA, decompositions[bi], plan.Window, steps[bi], workers);
+                var b = NarrowbandExtractor.Extract(trialsB, decompositions[bi], plan.Window, steps[bi], workers);
+                var stageProgress = progress is null ? null
+                    : new Progress<int>(done => progress.Report(new RunProgress($"{stage}: label permutations", done, plan.Surrogates)));
+                var tested = ConditionContrast.Run(a, b, plan.Measures, plan.Surrogates, Seeds.ForContrast(plan.Seed, ki, bi), contrast.Name,
+                    workers > 0 ? workers : null, stageProgress, cancellationToken);
+                foreach (var m in tested)
+                {
+                    var corrected = FalseDiscoveryRate.BenjaminiHochberg(m.P);
+                    var significant = corrected.Select(q => q <= plan.Q).ToArray();
+                    results.Add(new ContrastPairResult(contrast.Name, contrast.ConditionA, contrast.ConditionB, plan.Bands[bi].Name,
+                        MeasureCatalog.Key(m.Measure), trialsA.Channels, m.ValueA, m.ValueB, m.Difference, m.Z, m.P, corrected, significant, positions));
+                }
+            }
+        }
+        return results;
+    }
+
+    private static TrialSet Cut(Plan plan, LoadedInput input, string condition, int pad)
+    {
+        var trials = input.Trials(plan.Conditions.First(c => c.Name == condition), plan.Trial, pad);
+        if (plan.SubtractEvoked) EvokedRemoval.SubtractInPlace(trials);
+        return trials;
     }
 
     /// <summary>Runs a check whose message names no file, prefixing its InputException with the plan and the key it concerns.</summary>

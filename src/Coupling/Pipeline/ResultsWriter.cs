@@ -13,7 +13,8 @@ namespace Coupling.Pipeline;
 /// <remarks>
 /// Everything is written into a temporary sibling folder that is renamed into place only when all of it is written
 /// (<see cref="OutputFolder"/>): a stopped or failed run leaves no partial results and keeps an older folder.
-/// Layout (docs/outputs.md): report.md, manifest.json, edges.tsv, nodes.tsv, matrices/, graphs/, figures/.
+/// Layout (docs/outputs.md): report.md, manifest.json, edges.tsv, nodes.tsv, matrices/, graphs/, figures/, and with
+/// contrasts in the plan contrasts.tsv, matrices/contrasts/ and figures/contrasts/.
 /// </remarks>
 public static class ResultsWriter
 {
@@ -60,6 +61,27 @@ public static class ResultsWriter
         progress?.Report(new RunProgress("writing results", total, total));
         NodeTableWriter.Write(graphs, folder.PathOf("nodes.tsv"));
         written.Add("nodes.tsv");
+
+        if (analysis.Contrasts.Count > 0)
+        {
+            ContrastTableWriter.Write(analysis.Contrasts, folder.PathOf("contrasts.tsv"));
+            written.Add("contrasts.tsv");
+            Directory.CreateDirectory(folder.PathOf("matrices/contrasts"));
+            if (plan.Figures) Directory.CreateDirectory(folder.PathOf("figures/contrasts"));
+            foreach (var c in analysis.Contrasts)
+            {
+                var difference = c.AsDifference();
+                written.AddRange(MatrixCsvWriter.Write(difference, folder.PathOf("matrices/contrasts")).Select(Rel));
+                if (plan.Figures)
+                {
+                    string stem = OutputNames.Stem(difference);
+                    MatrixFigure.Save(difference, folder.PathOf($"figures/contrasts/{stem}_matrix.png"));
+                    NetworkFigure.Save(difference, folder.PathOf($"figures/contrasts/{stem}_network.png"));
+                    written.Add($"figures/contrasts/{stem}_matrix.png");
+                    written.Add($"figures/contrasts/{stem}_network.png");
+                }
+            }
+        }
 
         RunReport.Write(plan, input, analysis, graphs.Select(g => g.Item4).ToArray(), folder.PathOf("report.md"));
         written.Add("report.md");

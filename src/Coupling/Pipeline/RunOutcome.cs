@@ -8,4 +8,6 @@ namespace Coupling.Pipeline;
 /// <param name="Conditions">Trial counts per condition.</param>
 /// <param name="Warnings">Warnings about the analysis, also in the report.</param>
 /// <param name="Elapsed">Wall-clock time of the run.</param>
-public sealed record RunOutcome(string OutputFolder, IReadOnlyList<PairResult> Results, IReadOnlyList<ConditionSummary> Conditions, IReadOnlyList<string> Warnings, TimeSpan Elapsed);
+/// <param name="Contrasts">The tested condition differences (empty when the plan has no contrasts).</param>
+public sealed record RunOutcome(string OutputFolder, IReadOnlyList<PairResult> Results, IReadOnlyList<ConditionSummary> Conditions, IReadOnlyList<string> Warnings, TimeSpan Elapsed,
+    IReadOnlyList<ContrastPairResult> Contrasts);

@@ -75,6 +75,31 @@ public static class RunReport
                 $"| {r.Condition} | {r.Band} | {r.Measure} | {g.EdgeCount} / {r.Value.Length} | {g.Density:0.###} | {string.Join("; ", top)} |"));
         }
         sb.AppendLine();
+        if (analysis.Contrasts.Count > 0)
+        {
+            sb.AppendLine("## Condition contrasts");
+            sb.AppendLine();
+            sb.AppendLine($"Differences A − B tested by {plan.Surrogates} random reassignments of the condition labels of the pooled trials " +
+                          $"(group sizes kept; two-sided p = (b+1)/(M+1); Benjamini-Hochberg at q = {plan.Q.ToString("G4", inv)} across the pairs of each contrast x band x measure). " +
+                          "A pair significant in one condition and not in the other is NOT evidence that the two differ; this test is.");
+            sb.AppendLine();
+            sb.AppendLine("| contrast | band | measure | significant | largest significant differences (A, B, A − B, z) |");
+            sb.AppendLine("|---|---|---|---|---|");
+            foreach (var c in analysis.Contrasts)
+            {
+                int found = c.Significant.Count(s => s);
+                var top = Enumerable.Range(0, c.Difference.Length).Where(k => c.Significant[k])
+                    .OrderByDescending(k => double.IsNaN(c.Z[k]) ? double.NegativeInfinity : Math.Abs(c.Z[k])).Take(3)
+                    .Select(k =>
+                    {
+                        var (a, b) = PairIndex.Channels(k, c.Channels.Count);
+                        return string.Create(inv, $"{c.Channels[a]}-{c.Channels[b]} ({c.ValueA[k]:0.###}, {c.ValueB[k]:0.###}, {c.Difference[k]:0.###}, {c.Z[k]:0.#})");
+                    });
+                sb.AppendLine($"| {c.ConditionA} vs {c.ConditionB} | {c.Band} | {c.Measure} | {found} / {c.Difference.Length} | {string.Join("; ", top)} |");
+            }
+            sb.AppendLine();
+        }
+
         sb.AppendLine("## Reading these results");
         sb.AppendLine();
         sb.AppendLine("- plv, ppc and coherence also respond to volume conduction (one source seen by two channels at zero lag); " +
@@ -82,7 +107,8 @@ public static class RunReport
         sb.AppendLine("- Trial-shuffle surrogates keep each channel's stimulus-locked (evoked) activity, so a response shared only through the stimulus is not significant; " +
                       "the null hypothesis is no trial-by-trial dependence between the two channels.");
         sb.AppendLine("- Correction is within each condition x band x measure; looking across many tables raises the chance of a false finding again.");
-        sb.AppendLine("- Files: edges.tsv (every pair), nodes.tsv (degree, strength), matrices/ (CSV), graphs/ (GraphML), figures/ (PNG), manifest.json (everything the run depended on).");
+        sb.AppendLine("- Files: edges.tsv (every pair), nodes.tsv (degree, strength), matrices/ (CSV), graphs/ (GraphML), figures/ (PNG), manifest.json (everything the run depended on)" +
+                      (analysis.Contrasts.Count > 0 ? "; contrasts.tsv, matrices/contrasts/ and figures/contrasts/ (condition differences)." : "."));
         AtomicFile.WriteAllText(path, sb.ToString());
     }
 }

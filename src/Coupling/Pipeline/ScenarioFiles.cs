@@ -58,6 +58,8 @@ public static class ScenarioFiles
         sb.AppendLine("recording: scenario.edf");
         sb.AppendLine("conditions:");
         foreach (var c in truth.Conditions) sb.AppendLine($"  {c.Name}: [{c.EventLabel}]");
+        if (truth.Conditions.Count >= 2)
+            sb.AppendLine($"contrasts: [[{truth.Conditions[0].Name}, {truth.Conditions[1].Name}]]");
         sb.AppendLine(string.Create(inv, $"trial: {{ start: {truth.TrialStart:R}, end: {truth.TrialEnd:R} }}"));
         sb.AppendLine(string.Create(inv, $"window: {{ start: {truth.WindowStart:R}, end: {truth.WindowEnd:R} }}"));
         sb.AppendLine("evoked: keep          # the stimulus-locked pair is left in on purpose: trial shuffling must not call it coupling");

@@ -43,6 +43,38 @@ public static class TruthCheck
     }
 
     /// <summary>
+    /// For every built-in pair and every contrast of two of the scenario's conditions, in the pair's band: where the pair
+    /// is present in exactly one of the two conditions, every measure the truth lists as detecting it must show a
+    /// significant difference; where it is present in both, no measure may (the scenario builds each relation at the
+    /// same strength in every condition it occurs in, so there is no difference to find). Pairs absent from both are
+    /// left to <see cref="UnexpectedDiscoveries"/>. The line's condition is "A vs B".
+    /// </summary>
+    public static IReadOnlyList<TruthCheckLine> CompareContrasts(GroundTruth truth, IReadOnlyList<ContrastPairResult> contrasts)
+    {
+        var lines = new List<TruthCheckLine>();
+        var conditions = truth.Conditions.Select(c => c.Name).ToHashSet(StringComparer.Ordinal);
+        foreach (var pair in truth.Pairs)
+        {
+            string kind = JsonNamingPolicy.KebabCaseLower.ConvertName(pair.Kind.ToString());
+            foreach (var r in contrasts.Where(r => r.Band == pair.Band && conditions.Contains(r.ConditionA) && conditions.Contains(r.ConditionB)))
+            {
+                bool inA = pair.Conditions.Contains(r.ConditionA), inB = pair.Conditions.Contains(r.ConditionB);
+                if (!inA && !inB) continue;
+                var measure = MeasureCatalog.Parse(r.Measure);
+                bool? expect = inA && inB ? false : pair.DetectedBy.Contains(measure) ? true : null;
+                if (expect is null) continue;
+                var d = r.AsDifference();
+                int a = IndexOf(d, pair.ChannelA), b = IndexOf(d, pair.ChannelB);
+                if (a < 0 || b < 0) continue;
+                int k = PairIndex.Of(Math.Min(a, b), Math.Max(a, b), r.Channels.Count);
+                lines.Add(new TruthCheckLine(pair.ChannelA, pair.ChannelB, kind, d.Condition, pair.Band, r.Measure,
+                    expect.Value, r.Significant[k], r.PCorrected[k]));
+            }
+        }
+        return lines;
+    }
+
+    /// <summary>
     /// Significant pairs that the truth does not build in at all (in any band): the false discoveries of the run,
     /// per condition x band x measure, as (result, count of such pairs, count of pairs tested).
     /// </summary>

@@ -30,6 +30,9 @@ public sealed record Plan
     /// <summary>The conditions to compare.</summary>
     public required IReadOnlyList<ConditionSpec> Conditions { get; init; }
 
+    /// <summary>Pairs of conditions whose connectivity is tested for a difference (label permutation); empty for none.</summary>
+    public IReadOnlyList<ContrastSpec> Contrasts { get; init; } = [];
+
     /// <summary>The trial span around each onset.</summary>
     public required TimeRange Trial { get; init; }
 

@@ -18,6 +18,7 @@ public static class PlanReader
     [
         "recording", "events", "channels", "sample_rate", "epochs", "conditions", "trial", "window", "evoked",
         "bands", "decomposition", "measures", "surrogates", "seed", "correction", "output", "figures", "threads",
+        "contrasts",
     ];
 
     /// <summary>Reads the plan at <paramref name="path"/>; relative paths inside it are taken from the plan's folder.</summary>
@@ -66,6 +67,7 @@ public static class PlanReader
             throw ctx.Error(ep!, "epochs", "'epochs' applies only to .npy recordings");
 
         var conditions = ReadConditions(ctx, ctx.Required(map, root, "conditions", "the plan"));
+        var contrasts = map.TryGetValue("contrasts", out var cn) ? ReadContrasts(ctx, cn, conditions) : [];
         var trial = ReadRange(ctx, ctx.Required(map, root, "trial", "the plan"), "trial");
         var window = ReadRange(ctx, ctx.Required(map, root, "window", "the plan"), "window");
         if (window.Start < trial.Start || window.End > trial.End)
@@ -116,6 +118,7 @@ public static class PlanReader
             SampleRate = sampleRate,
             Epochs = epochs,
             Conditions = conditions,
+            Contrasts = contrasts,
             Trial = trial,
             Window = window,
             SubtractEvoked = subtract,
@@ -129,6 +132,29 @@ public static class PlanReader
             Figures = figures,
             Threads = threads,
         };
+    }
+
+    private static IReadOnlyList<ContrastSpec> ReadContrasts(Context ctx, YamlNode node, IReadOnlyList<ConditionSpec> conditions)
+    {
+        if (node is not YamlSequenceNode seq || seq.Children.Count == 0)
+            throw ctx.Error(node, "contrasts", "expected a non-empty list of condition pairs, e.g. [[cue, rest]]");
+        var names = conditions.Select(c => c.Name).ToArray();
+        var list = new List<ContrastSpec>();
+        foreach (var item in seq.Children)
+        {
+            if (item is not YamlSequenceNode pair || pair.Children.Count != 2)
+                throw ctx.Error(item, "contrasts", "each contrast is a list of two condition names, e.g. [cue, rest]");
+            string a = ctx.Scalar(pair.Children[0], "contrasts"), b = ctx.Scalar(pair.Children[1], "contrasts");
+            foreach (var name in new[] { a, b })
+                if (!names.Contains(name, StringComparer.Ordinal))
+                    throw ctx.Error(item, "contrasts", $"'{name}' is not a condition of the plan; conditions: {string.Join(", ", names)}");
+            if (a == b) throw ctx.Error(item, "contrasts", $"'{a}' is contrasted with itself; a contrast needs two different conditions");
+            var spec = new ContrastSpec(a, b);
+            if (list.Any(c => c.Covers(spec)))
+                throw ctx.Error(item, "contrasts", $"the contrast of '{a}' and '{b}' is listed twice");
+            list.Add(spec);
+        }
+        return list;
     }
 
     private static EpochsSpec ReadEpochs(Context ctx, YamlNode node)

@@ -1,4 +1,3 @@
-using System.Collections.Concurrent;
 using Coupling.Measures;
 using Coupling.Spectral;
 
@@ -26,9 +25,7 @@ namespace Coupling.Statistics;
 public static class SurrogateTest
 {
     /// <summary>Draws per chunk of work. Part of the definition of the result's rounding: changing it changes the last bits.</summary>
-    public const int DrawsPerChunk = 8;
-
-    private const int ChunksPerWave = 32;
+    public const int DrawsPerChunk = ChunkedDraws.DrawsPerChunk;
 
     /// <summary>Runs the test.</summary>
     /// <param name="set">The narrowband signals of one condition in one band.</param>
@@ -75,42 +72,15 @@ public static class SurrogateTest
             }
         }
 
-        int chunks = (draws + DrawsPerChunk - 1) / DrawsPerChunk;
-        var wave = new NullAccumulator[Math.Min(ChunksPerWave, chunks)];
-        for (int i = 0; i < wave.Length; i++) wave[i] = new NullAccumulator(cells);
-        var total = new NullAccumulator(cells);
-        var workers = new ConcurrentBag<Worker>();
-        workers.Add(new Worker(prototype));
-        var options = new ParallelOptions
-        {
-            MaxDegreeOfParallelism = maxThreads ?? -1,
-            CancellationToken = cancellationToken,
-        };
-        int done = 0;
-
-        for (int first = 0; first < chunks; first += wave.Length)
-        {
-            int count = Math.Min(wave.Length, chunks - first);
-            int waveStart = first;
-            Parallel.For(0, count, options, i =>
+        var total = ChunkedDraws.Run(draws, observedStatistic, twoSided, new Worker(prototype),
+            () => new Worker(prototype.CreateSibling()),
+            (worker, d) =>
             {
-                int chunk = waveStart + i;
-                var worker = workers.TryTake(out var w) ? w : new Worker(prototype.CreateSibling());
-                var accumulator = wave[i];
-                accumulator.Reset();
-                int start = chunk * DrawsPerChunk, end = Math.Min(draws, start + DrawsPerChunk);
-                for (int d = start; d < end; d++)
-                {
-                    TrialShuffle.Generate(seed, d, worker.Permutation);
-                    PairwiseKernels.Compute(worker.Workspace, worker.Permutation, worker.Values);
-                    accumulator.Add(worker.Values, observedStatistic, twoSided);
-                }
-                workers.Add(worker);
-                int finished = Interlocked.Add(ref done, end - start);
-                progress?.Report(finished);
-            });
-            for (int i = 0; i < count; i++) total.Merge(wave[i]);
-        }
+                TrialShuffle.Generate(seed, d, worker.Permutation);
+                PairwiseKernels.Compute(worker.Workspace, worker.Permutation, worker.Values);
+                return worker.Values;
+            },
+            maxThreads, progress, cancellationToken);
 
         var results = new SurrogateResult[slots];
         for (int k = 0; k < slots; k++)

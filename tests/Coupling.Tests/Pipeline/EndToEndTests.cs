@@ -162,4 +162,44 @@ public sealed class EndToEndTests(ScenarioRun run)
         Assert.Contains("not a medical device", report);
         Assert.True(report.IndexOf("Research use only", StringComparison.Ordinal) < report.IndexOf("## Input", StringComparison.Ordinal));
     }
+
+    [Fact]
+    public void The_beta_pair_coupled_in_tone_only_differs_between_tone_and_light()
+    {
+        // A permutation test of the condition labels detects a difference where the relation exists in one condition
+        // only (Maris and Oostenveld 2007, J Neurosci Methods 164:177): every measure that finds the pair in 'tone'.
+        var beta = run.Truth.Pairs.Single(p => p.Band == "beta");
+        var lines = run.ContrastLines.Where(l => l.Band == "beta" && l.ChannelA == beta.ChannelA && l.ChannelB == beta.ChannelB).ToArray();
+        Assert.Equal(beta.DetectedBy.Count, lines.Length);
+        Assert.All(lines, l => Assert.Equal("tone vs light", l.Condition));
+        Assert.All(lines, l => Assert.True(l.Significant, Describe(l)));
+    }
+
+    [Fact]
+    public void Pairs_built_the_same_in_both_conditions_do_not_differ()
+    {
+        // theta, zero-lag, envelope and stimulus-locked pairs are present in both conditions at one strength: the
+        // labels are exchangeable for them, so no difference may be called significant.
+        var lines = run.ContrastLines.Where(l => !l.ExpectSignificant).ToArray();
+        Assert.Equal(4 * MeasureCatalog.All.Count, lines.Length);
+        foreach (var kind in new[] { "phase-coupled", "zero-lag-mixing", "envelope-only", "stimulus-locked" })
+            Assert.Contains(lines, l => l.Kind == kind);
+        Assert.All(lines, l => Assert.False(l.Significant, Describe(l)));
+    }
+
+    [Fact]
+    public void The_contrast_table_has_a_row_for_every_pair_of_every_band_and_measure()
+    {
+        var lines = File.ReadAllLines(run.Output("contrasts.tsv"));
+        // Rows: 1 contrast x 4 bands x 9 measures x 45 pairs.
+        Assert.Equal(1 * 4 * 9 * 45, lines.Length - 1);
+        Assert.Equal(string.Join('\t', ContrastTableWriter.Columns), lines[0]);
+        int columns = ContrastTableWriter.Columns.Count;
+        Assert.All(lines.Skip(1), l => Assert.Equal(columns, l.Split('\t').Length));
+        Assert.All(lines.Skip(1), l => Assert.StartsWith("tone-vs-light\ttone\tlight\t", l, StringComparison.Ordinal));
+        Assert.Equal(4 * 9, run.Outcome.Contrasts.Count);
+        Assert.Equal(3 * 4 * 9, Directory.GetFiles(run.Output("matrices/contrasts"), "*.csv").Length);
+        Assert.Equal(2 * 4 * 9, Directory.GetFiles(run.Output("figures/contrasts"), "*.png").Length);
+        Assert.Contains("## Condition contrasts", File.ReadAllText(run.Output("report.md")));
+    }
 }

@@ -20,6 +20,7 @@ public sealed class ScenarioRun : IDisposable
         Outcome = AnalysisRunner.Run(Plan);
         Truth = TruthFile.Read(Paths.Truth);
         Lines = TruthCheck.Compare(Truth, Outcome.Results);
+        ContrastLines = TruthCheck.CompareContrasts(Truth, Outcome.Contrasts);
     }
 
     public ScenarioPaths Paths { get; }
@@ -31,6 +32,9 @@ public sealed class ScenarioRun : IDisposable
     public GroundTruth Truth { get; }
 
     public IReadOnlyList<TruthCheckLine> Lines { get; }
+
+    /// <summary>The ground truth held against the condition contrasts (the plan contrasts tone with light).</summary>
+    public IReadOnlyList<TruthCheckLine> ContrastLines { get; }
 
     public string Output(string relative) => Path.Combine(Outcome.OutputFolder, relative);
 

@@ -237,4 +237,36 @@ public sealed class PlanReaderTests
     [InlineData("-0.05")]
     public void A_false_discovery_rate_level_outside_zero_to_one_is_refused(string q) =>
         AssertRefused(Plus($"correction: {{ method: fdr-bh, q: {q} }}"), 12, "correction.q:", "expected a level between 0 and 1");
+
+    [Fact]
+    public void Contrasts_are_read_as_pairs_of_conditions_in_the_order_given()
+    {
+        var plan = Parse(Plus("contrasts: [[cue, rest]]"));
+        var contrast = Assert.Single(plan.Contrasts);
+        Assert.Equal(("cue", "rest"), (contrast.ConditionA, contrast.ConditionB));
+        Assert.Equal("cue-vs-rest", contrast.Name);
+        Assert.Empty(Parse(Minimal).Contrasts);
+        Assert.Contains("contrasts", PlanReader.TopLevelKeys);
+    }
+
+    [Fact]
+    public void A_contrast_with_an_unknown_condition_is_refused_with_the_known_ones() =>
+        AssertRefused(Plus("contrasts: [[cue, task]]"), 12, "contrasts:", "'task' is not a condition of the plan", "conditions: cue, rest");
+
+    [Fact]
+    public void A_condition_contrasted_with_itself_is_refused() =>
+        AssertRefused(Plus("contrasts: [[cue, cue]]"), 12, "contrasts:", "'cue' is contrasted with itself");
+
+    [Theory]
+    [InlineData("contrasts: [[cue, rest], [cue, rest]]")]
+    [InlineData("contrasts: [[cue, rest], [rest, cue]]")]
+    public void A_contrast_listed_twice_is_refused_in_either_order(string line) =>
+        AssertRefused(Plus(line), 12, "contrasts:", "is listed twice");
+
+    [Theory]
+    [InlineData("contrasts: [cue, rest]")]
+    [InlineData("contrasts: [[cue, rest, cue]]")]
+    [InlineData("contrasts: cue")]
+    public void A_contrast_that_is_not_a_list_of_two_names_is_refused(string line) =>
+        AssertRefused(Plus(line), 12, "contrasts:");
 }

@@ -1,0 +1,62 @@
+using System.Collections.Concurrent;
+
+namespace Coupling.Statistics;
+
+/// <summary>
+/// Runs the draws of a resampling test in fixed chunks of <see cref="DrawsPerChunk"/>, in parallel, each chunk summarised
+/// on its own (<see cref="NullAccumulator"/>) and the chunk summaries merged in chunk order, so the result is the same to
+/// the last bit whatever the number of threads. Shared by the trial-shuffle and the condition-label tests.
+/// </summary>
+internal static class ChunkedDraws
+{
+    /// <summary>Draws per chunk of work. Part of the definition of the result's rounding: changing it changes the last bits.</summary>
+    public const int DrawsPerChunk = 8;
+
+    private const int ChunksPerWave = 32;
+
+    /// <summary>
+    /// Runs draws 0..<paramref name="draws"/>−1. <paramref name="draw"/> computes draw d with a worker (one thread at a
+    /// time per worker) and returns the values of every cell; workers are made by <paramref name="createWorker"/> as
+    /// threads need them, after <paramref name="first"/> (if given) is used.
+    /// </summary>
+    public static NullAccumulator Run<TWorker>(int draws, double[] observedStatistic, bool[] twoSided, TWorker? first,
+        Func<TWorker> createWorker, Func<TWorker, int, double[]> draw, int? maxThreads, IProgress<int>? progress,
+        CancellationToken cancellationToken)
+        where TWorker : class
+    {
+        int cells = observedStatistic.Length;
+        int chunks = (draws + DrawsPerChunk - 1) / DrawsPerChunk;
+        var wave = new NullAccumulator[Math.Min(ChunksPerWave, chunks)];
+        for (int i = 0; i < wave.Length; i++) wave[i] = new NullAccumulator(cells);
+        var total = new NullAccumulator(cells);
+        var workers = new ConcurrentBag<TWorker>();
+        if (first is not null) workers.Add(first);
+        var options = new ParallelOptions
+        {
+            MaxDegreeOfParallelism = maxThreads ?? -1,
+            CancellationToken = cancellationToken,
+        };
+        int done = 0;
+
+        for (int start0 = 0; start0 < chunks; start0 += wave.Length)
+        {
+            int count = Math.Min(wave.Length, chunks - start0);
+            int waveStart = start0;
+            Parallel.For(0, count, options, i =>
+            {
+                int chunk = waveStart + i;
+                var worker = workers.TryTake(out var w) ? w : createWorker();
+                var accumulator = wave[i];
+                accumulator.Reset();
+                int start = chunk * DrawsPerChunk, end = Math.Min(draws, start + DrawsPerChunk);
+                for (int d = start; d < end; d++)
+                    accumulator.Add(draw(worker, d), observedStatistic, twoSided);
+                workers.Add(worker);
+                int finished = Interlocked.Add(ref done, end - start);
+                progress?.Report(finished);
+            });
+            for (int i = 0; i < count; i++) total.Merge(wave[i]);
+        }
+        return total;
+    }
+}
