@@ -142,7 +142,7 @@ public static class AnalysisRunner
                     workers > 0 ? workers : null, stageProgress, cancellationToken);
                 foreach (var m in tested)
                 {
-                    var corrected = FalseDiscoveryRate.BenjaminiHochberg(m.P);
+                    var corrected = FalseDiscoveryRate.BenjaminiHochbergOfDefined(m.P);
                     var significant = corrected.Select(q => q <= plan.Q).ToArray();
                     results.Add(new ContrastPairResult(contrast.Name, contrast.ConditionA, contrast.ConditionB, plan.Bands[bi].Name,
                         MeasureCatalog.Key(m.Measure), trialsA.Channels, m.ValueA, m.ValueB, m.Difference, m.Z, m.P, corrected, significant, positions));
