@@ -26,7 +26,6 @@ internal sealed class PairTables
         Times = times;
         Stride = (channels + ChannelMultiple - 1) / ChannelMultiple * ChannelMultiple;
         long length = (long)times * trials * Stride;
-        var data = set.Data;
 
         if (phase)
         {
@@ -39,6 +38,31 @@ internal sealed class PairTables
             RawIm = new AlignedArray(length);
             InverseRootPower = new AlignedArray((long)times * Stride);
         }
+        if (envelope || orthogonal)
+        {
+            Deviation = new AlignedArray(length);
+            if (orthogonal)
+            {
+                EnvelopeRe = new AlignedArray(length);
+                EnvelopeIm = new AlignedArray(length);
+                InverseEnvelope = new AlignedArray(length);
+            }
+        }
+        Fill(set);
+    }
+
+    /// <summary>
+    /// (Re)fills every table from <paramref name="set"/>, which must have the shape the tables were sized for: the
+    /// constructor calls it, and a caller that changes a set's values in place calls it again instead of allocating
+    /// new tables (padding channels stay zero).
+    /// </summary>
+    public void Fill(NarrowbandSet set)
+    {
+        int channels = set.ChannelCount, trials = set.TrialCount, times = set.TimeCount;
+        if (channels != Channels || trials != Trials || times != Times)
+            throw new ArgumentException($"The set is {times}x{channels}x{trials}; the tables are sized for {Times}x{Channels}x{Trials}.", nameof(set));
+        var data = set.Data;
+        bool phase = UnitRe is not null, cross = RawRe is not null, orthogonal = EnvelopeRe is not null;
         if (phase || cross)
         {
             for (int t = 0; t < times; t++)
@@ -69,15 +93,8 @@ internal sealed class PairTables
                 }
         }
 
-        if (envelope || orthogonal)
+        if (Deviation is not null)
         {
-            Deviation = new AlignedArray(length);
-            if (orthogonal)
-            {
-                EnvelopeRe = new AlignedArray(length);
-                EnvelopeIm = new AlignedArray(length);
-                InverseEnvelope = new AlignedArray(length);
-            }
             var row = new double[times];
             var unit = new double[times];
             for (int n = 0; n < trials; n++)

@@ -70,6 +70,13 @@ public sealed class PairwiseWorkspace
     /// </summary>
     public PairwiseWorkspace CreateSibling() => new(Set, Measures, Tables);
 
+    /// <summary>
+    /// Re-reads <see cref="Set"/>'s values into the tables after the caller changed them in place (same shape), so
+    /// repeated computations on changing data of one shape allocate nothing. Only for a workspace whose tables no
+    /// sibling shares.
+    /// </summary>
+    internal void Reload() => Tables.Fill(Set);
+
     internal int[] Slot { get; }
     internal bool NeedsPhase { get; }
     internal bool NeedsCross { get; }

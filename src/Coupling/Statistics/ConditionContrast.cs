@@ -153,11 +153,17 @@ public static class ConditionContrast
         private readonly int[] _identity = Enumerable.Range(0, shape.TrialCount).ToArray();
         private readonly double[] _values = new double[measures.Count * PairIndex.Count(shape.ChannelCount)];
 
-        /// <summary>The measures of <paramref name="set"/> (same trial count as the shape), into this worker's buffer.</summary>
+        private PairwiseWorkspace? _workspace;
+
+        /// <summary>
+        /// The measures of <paramref name="set"/> (same trial count as the shape), into this worker's buffer; a set whose
+        /// values changed in place since the last call is re-read into the same tables instead of new ones.
+        /// </summary>
         public double[] Compute(NarrowbandSet set)
         {
-            var workspace = new PairwiseWorkspace(set, measures);
-            PairwiseKernels.Compute(workspace, _identity, _values);
+            if (_workspace is null || !ReferenceEquals(_workspace.Set, set)) _workspace = new PairwiseWorkspace(set, measures);
+            else _workspace.Reload();
+            PairwiseKernels.Compute(_workspace, _identity, _values);
             return _values;
         }
     }
