@@ -108,6 +108,18 @@ public sealed class BadInputTests(SmallScenario scenario) : IClassFixture<SmallS
     }
 
     [Fact]
+    public void Too_few_trials_for_the_label_permutations_of_a_contrast_are_refused_before_any_long_step()
+    {
+        Assert.Equal(0, CommandLine.Run(["simulate", "--trials", "7", "--output", _folder["sim"]], new StringWriter(), new StringWriter()));
+        // 7 trials per condition allow 7! = 5040 trial orders, enough for 4000 surrogates, but the 14 pooled trials
+        // split into two groups of 7 only C(14, 7) = 3432 ways, fewer than the 4000 label permutations asked.
+        string plan = Path.Combine(_folder["sim"], "plan.yaml");
+        File.WriteAllText(plan, File.ReadAllText(plan).Replace("surrogates: 1000", "surrogates: 4000"));
+        Refused(plan, "plan.yaml: contrasts:", "tone-vs-light", "at most 3432 distinct splits", "4000 surrogates");
+        Assert.False(Directory.Exists(Path.Combine(_folder["sim"], "results")));
+    }
+
+    [Fact]
     public void A_nan_sample_is_refused() =>
         Refused(Small(edit: (c, s, v) => c == 1 && s == 300 ? double.NaN : v), "rec.csv", "line 302", "channel 'B', sample 300", "not finite");
 
