@@ -30,7 +30,8 @@ public static class MatrixFigure
     /// <param name="path">Output PNG path; written atomically.</param>
     /// <param name="width">Image width in pixels (at least 200).</param>
     /// <param name="height">Image height in pixels (at least 200).</param>
-    public static void Save(PairResult result, string path, int width = 900, int height = 800)
+    /// <param name="valueLabel">What the values are, for the colour scale (default: the measure key).</param>
+    public static void Save(PairResult result, string path, int width = 900, int height = 800, string? valueLabel = null)
     {
         PairResultShape.Check(result);
         int n = result.Channels.Count;
@@ -83,7 +84,7 @@ public static class MatrixFigure
         }
 
         var bar = plot.Add.ColorBar(heatmap);
-        bar.Label = result.Measure;
+        bar.Label = valueLabel ?? result.Measure;
         bar.LabelStyle.FontSize = 14;
         bar.Axis.MinorTickStyle.Length = 0;
 

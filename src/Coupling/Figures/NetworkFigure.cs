@@ -25,7 +25,8 @@ public static class NetworkFigure
     /// <param name="path">Output PNG path; written atomically.</param>
     /// <param name="width">Image width in pixels (at least 200).</param>
     /// <param name="height">Image height in pixels (at least 200).</param>
-    public static void Save(PairResult result, string path, int width = 900, int height = 800)
+    /// <param name="valueLabel">What the values are, for the colour scale (default: the measure key).</param>
+    public static void Save(PairResult result, string path, int width = 900, int height = 800, string? valueLabel = null)
     {
         var graph = ChannelGraphs.Build(result);
         int n = result.Channels.Count;
@@ -90,7 +91,7 @@ public static class NetworkFigure
             // No bar label: the title's second line names the scale (a label here would collide with the ticks).
             bar.Axis.MinorTickStyle.Length = 0;
             string dashed = edges.Any(e => e.Value < 0) ? "; dashed: negative" : "";
-            note = $"{edges.Length} significant of {result.Significant.Length} pairs; width and colour: |{result.Measure}|{dashed}";
+            note = $"{edges.Length} significant of {result.Significant.Length} pairs; width and colour: |{valueLabel ?? result.Measure}|{dashed}";
         }
         plot.Title($"{FigureStyle.Title(result)}\n{note}", FigureStyle.TitleSize(width));
         // Fixed margins: room for the two-line title at the top and the colour bar at the right.

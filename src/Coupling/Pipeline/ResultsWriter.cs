@@ -75,8 +75,9 @@ public static class ResultsWriter
                 if (plan.Figures)
                 {
                     string stem = OutputNames.Stem(difference);
-                    MatrixFigure.Save(difference, folder.PathOf($"figures/contrasts/{stem}_matrix.png"));
-                    NetworkFigure.Save(difference, folder.PathOf($"figures/contrasts/{stem}_network.png"));
+                    string label = $"{difference.Measure} difference";
+                    MatrixFigure.Save(difference, folder.PathOf($"figures/contrasts/{stem}_matrix.png"), valueLabel: label);
+                    NetworkFigure.Save(difference, folder.PathOf($"figures/contrasts/{stem}_network.png"), valueLabel: label);
                     written.Add($"figures/contrasts/{stem}_matrix.png");
                     written.Add($"figures/contrasts/{stem}_network.png");
                 }
