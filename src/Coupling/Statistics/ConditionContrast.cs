@@ -84,27 +84,10 @@ public static class ConditionContrast
         var results = new ContrastResult[slots];
         for (int k = 0; k < slots; k++)
         {
-            var va = new double[pairs];
-            var vb = new double[pairs];
-            var diff = new double[pairs];
-            var mean = new double[pairs];
-            var sd = new double[pairs];
-            var exceed = new int[pairs];
-            var pValue = new double[pairs];
-            var z = new double[pairs];
-            for (int p = 0; p < pairs; p++)
-            {
-                int i = k * pairs + p;
-                va[p] = valueA[i];
-                vb[p] = valueB[i];
-                diff[p] = difference[i];
-                mean[p] = total.Mean[i];
-                sd[p] = draws > 1 ? Math.Sqrt(total.SquaredDeviations[i] / (draws - 1)) : double.NaN;
-                exceed[p] = total.Exceedances[i];
-                pValue[p] = double.IsNaN(difference[i]) ? double.NaN : (exceed[p] + 1.0) / (draws + 1.0);
-                z[p] = sd[p] > 0 ? (diff[p] - mean[p]) / sd[p] : double.NaN;
-            }
-            results[k] = new ContrastResult(measures[k], draws, va, vb, diff, mean, sd, exceed, pValue, z);
+            var n = total.Summarise(k, pairs, draws, difference, observedStatistic);
+            results[k] = new ContrastResult(measures[k], draws, valueA.AsSpan(k * pairs, pairs).ToArray(),
+                valueB.AsSpan(k * pairs, pairs).ToArray(), difference.AsSpan(k * pairs, pairs).ToArray(), n.Mean, n.Sd,
+                n.Exceedances, n.P, n.Z);
         }
         return results;
     }

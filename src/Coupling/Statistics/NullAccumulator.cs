@@ -68,4 +68,27 @@ internal sealed class NullAccumulator
         }
         Count += other.Count;
     }
+
+    /// <summary>
+    /// The null summary of the cells <c>[slot·pairs, (slot+1)·pairs)</c> after <paramref name="draws"/> draws: mean,
+    /// standard deviation (n − 1 denominator; NaN for one draw), exceedance count b, p = (b+1)/(M+1) (Phipson &amp; Smyth
+    /// 2010; NaN where the observed statistic is NaN) and z = (observed − mean)/sd (NaN where sd is not positive).
+    /// </summary>
+    public NullSummary Summarise(int slot, int pairs, int draws, ReadOnlySpan<double> observed, ReadOnlySpan<double> observedStatistic)
+    {
+        var summary = new NullSummary(new double[pairs], new double[pairs], new int[pairs], new double[pairs], new double[pairs]);
+        for (int p = 0; p < pairs; p++)
+        {
+            int i = slot * pairs + p;
+            summary.Mean[p] = Mean[i];
+            summary.Sd[p] = draws > 1 ? Math.Sqrt(SquaredDeviations[i] / (draws - 1)) : double.NaN;
+            summary.Exceedances[p] = Exceedances[i];
+            summary.P[p] = double.IsNaN(observedStatistic[i]) ? double.NaN : (Exceedances[i] + 1.0) / (draws + 1.0);
+            summary.Z[p] = summary.Sd[p] > 0 ? (observed[i] - summary.Mean[p]) / summary.Sd[p] : double.NaN;
+        }
+        return summary;
+    }
 }
+
+/// <summary>Per pair: null mean and standard deviation, exceedance count, p and z.</summary>
+internal sealed record NullSummary(double[] Mean, double[] Sd, int[] Exceedances, double[] P, double[] Z);

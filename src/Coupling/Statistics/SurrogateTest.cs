@@ -85,23 +85,9 @@ public static class SurrogateTest
         var results = new SurrogateResult[slots];
         for (int k = 0; k < slots; k++)
         {
-            var value = new double[pairs];
-            var mean = new double[pairs];
-            var sd = new double[pairs];
-            var exceed = new int[pairs];
-            var pValue = new double[pairs];
-            var z = new double[pairs];
-            for (int p = 0; p < pairs; p++)
-            {
-                int i = k * pairs + p;
-                value[p] = observed[i];
-                mean[p] = total.Mean[i];
-                sd[p] = draws > 1 ? Math.Sqrt(total.SquaredDeviations[i] / (draws - 1)) : double.NaN;
-                exceed[p] = total.Exceedances[i];
-                pValue[p] = double.IsNaN(observedStatistic[i]) ? double.NaN : (exceed[p] + 1.0) / (draws + 1.0);
-                z[p] = sd[p] > 0 ? (value[p] - mean[p]) / sd[p] : double.NaN;
-            }
-            results[k] = new SurrogateResult(measures[k], draws, value, mean, sd, exceed, pValue, z);
+            var n = total.Summarise(k, pairs, draws, observed, observedStatistic);
+            results[k] = new SurrogateResult(measures[k], draws, observed.AsSpan(k * pairs, pairs).ToArray(), n.Mean, n.Sd,
+                n.Exceedances, n.P, n.Z);
         }
         return results;
     }
