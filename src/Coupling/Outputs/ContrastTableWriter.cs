@@ -1,4 +1,3 @@
-using System.Text;
 using Coupling.Measures;
 using Coupling.Results;
 
@@ -28,40 +27,28 @@ public static class ContrastTableWriter
     public static int Write(IEnumerable<ContrastPairResult> results, string path)
     {
         ArgumentNullException.ThrowIfNull(results);
-        using var stream = AtomicFile.Create(path);
-        int rows = 0;
-        using (var w = new StreamWriter(stream, new UTF8Encoding(false), 1 << 16, leaveOpen: true) { NewLine = "\n" })
+        return TidyTable.Write(path, Columns, Rows(results));
+    }
+
+    private static IEnumerable<IReadOnlyList<string>> Rows(IEnumerable<ContrastPairResult> results)
+    {
+        foreach (var r in results)
         {
-            w.Write(string.Join('\t', Columns));
-            w.Write('\n');
-            var sb = new StringBuilder();
-            foreach (var r in results)
+            PairResultShape.Check(r.AsDifference());
+            if (r.ValueA.Length != r.Difference.Length || r.ValueB.Length != r.Difference.Length)
+                throw new ArgumentException($"Contrast {r.Contrast}/{r.Band}/{r.Measure}: value arrays differ in length from the differences.");
+            int c = r.Channels.Count;
+            for (int k = 0; k < r.Difference.Length; k++)
             {
-                PairResultShape.Check(r.AsDifference());
-                if (r.ValueA.Length != r.Difference.Length || r.ValueB.Length != r.Difference.Length)
-                    throw new ArgumentException($"Contrast {r.Contrast}/{r.Band}/{r.Measure}: value arrays differ in length from the differences.");
-                int c = r.Channels.Count;
-                string head = string.Join('\t', new[] { r.Contrast, r.ConditionA, r.ConditionB, r.Band, r.Measure }.Select(f => TableText.Field(f, '\t'))) + "\t";
-                for (int k = 0; k < r.Difference.Length; k++)
-                {
-                    var (a, b) = PairIndex.Channels(k, c);
-                    sb.Clear();
-                    sb.Append(head)
-                      .Append(TableText.Field(r.Channels[a], '\t')).Append('\t')
-                      .Append(TableText.Field(r.Channels[b], '\t')).Append('\t')
-                      .Append(TableText.Number(r.ValueA[k])).Append('\t')
-                      .Append(TableText.Number(r.ValueB[k])).Append('\t')
-                      .Append(TableText.Number(r.Difference[k])).Append('\t')
-                      .Append(TableText.Number(r.Z[k])).Append('\t')
-                      .Append(TableText.Number(r.P[k])).Append('\t')
-                      .Append(TableText.Number(r.PCorrected[k])).Append('\t')
-                      .Append(r.Significant[k] ? "true" : "false").Append('\n');
-                    w.Write(sb);
-                    rows++;
-                }
+                var (a, b) = PairIndex.Channels(k, c);
+                yield return
+                [
+                    r.Contrast, r.ConditionA, r.ConditionB, r.Band, r.Measure, r.Channels[a], r.Channels[b],
+                    TableText.Number(r.ValueA[k]), TableText.Number(r.ValueB[k]), TableText.Number(r.Difference[k]),
+                    TableText.Number(r.Z[k]), TableText.Number(r.P[k]), TableText.Number(r.PCorrected[k]),
+                    r.Significant[k] ? "true" : "false",
+                ];
             }
         }
-        stream.Commit();
-        return rows;
     }
 }

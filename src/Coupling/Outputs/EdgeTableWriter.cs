@@ -1,4 +1,3 @@
-using System.Text;
 using Coupling.Measures;
 using Coupling.Results;
 
@@ -29,36 +28,25 @@ public static class EdgeTableWriter
     public static int Write(IEnumerable<PairResult> results, string path)
     {
         ArgumentNullException.ThrowIfNull(results);
-        using var stream = AtomicFile.Create(path);
-        int rows = 0;
-        using (var w = new StreamWriter(stream, new UTF8Encoding(false), 1 << 16, leaveOpen: true) { NewLine = "\n" })
+        return TidyTable.Write(path, Columns, Rows(results));
+    }
+
+    private static IEnumerable<IReadOnlyList<string>> Rows(IEnumerable<PairResult> results)
+    {
+        foreach (var r in results)
         {
-            w.Write(string.Join('\t', Columns));
-            w.Write('\n');
-            var sb = new StringBuilder();
-            foreach (var r in results)
+            PairResultShape.Check(r);
+            int c = r.Channels.Count;
+            for (int k = 0; k < r.Value.Length; k++)
             {
-                PairResultShape.Check(r);
-                int c = r.Channels.Count;
-                string head = $"{TableText.Field(r.Condition, '\t')}\t{TableText.Field(r.Band, '\t')}\t{TableText.Field(r.Measure, '\t')}\t";
-                for (int k = 0; k < r.Value.Length; k++)
-                {
-                    var (a, b) = PairIndex.Channels(k, c);
-                    sb.Clear();
-                    sb.Append(head)
-                      .Append(TableText.Field(r.Channels[a], '\t')).Append('\t')
-                      .Append(TableText.Field(r.Channels[b], '\t')).Append('\t')
-                      .Append(TableText.Number(r.Value[k])).Append('\t')
-                      .Append(TableText.Number(r.Z[k])).Append('\t')
-                      .Append(TableText.Number(r.P[k])).Append('\t')
-                      .Append(TableText.Number(r.PCorrected[k])).Append('\t')
-                      .Append(r.Significant[k] ? "true" : "false").Append('\n');
-                    w.Write(sb);
-                    rows++;
-                }
+                var (a, b) = PairIndex.Channels(k, c);
+                yield return
+                [
+                    r.Condition, r.Band, r.Measure, r.Channels[a], r.Channels[b], TableText.Number(r.Value[k]),
+                    TableText.Number(r.Z[k]), TableText.Number(r.P[k]), TableText.Number(r.PCorrected[k]),
+                    r.Significant[k] ? "true" : "false",
+                ];
             }
         }
-        stream.Commit();
-        return rows;
     }
 }
