@@ -10,7 +10,6 @@ namespace Coupling.Pipeline;
 /// </summary>
 public sealed class LoadedInput
 {
-    private readonly Recording? _recording;
     private readonly ISampleSource? _samples;
     private readonly IReadOnlyList<RecordingEvent>? _events;
     private readonly double[]? _epochs;
@@ -19,7 +18,7 @@ public sealed class LoadedInput
     private readonly IReadOnlyList<string>? _epochLabels;
 
     private LoadedInput(string source, double sampleRate, IReadOnlyList<ChannelInfo> channels, IReadOnlyList<string> eventLabels,
-        IReadOnlyList<string> notes, Recording? recording, ISampleSource? samples, IReadOnlyList<RecordingEvent>? events, double[]? epochs, int epochCount, int epochSamples,
+        IReadOnlyList<string> notes, ISampleSource? samples, IReadOnlyList<RecordingEvent>? events, double[]? epochs, int epochCount, int epochSamples,
         double firstSampleTime, IReadOnlyList<string>? epochLabels)
     {
         Source = source;
@@ -27,7 +26,6 @@ public sealed class LoadedInput
         Channels = channels;
         EventLabels = eventLabels;
         Notes = notes;
-        _recording = recording;
         _samples = samples;
         _events = events;
         _epochs = epochs;
@@ -38,9 +36,7 @@ public sealed class LoadedInput
     }
 
     /// <summary>A continuous recording with its events.</summary>
-    public static LoadedInput FromRecording(Recording recording) =>
-        new(recording.Source, recording.SampleRate, recording.Channels, recording.Events.Select(e => e.Label).ToArray(),
-            recording.Notes, recording, recording, recording.Events, null, 0, 0, 0, null);
+    public static LoadedInput FromRecording(Recording recording) => FromSource(recording, recording.Events, recording.Notes);
 
     /// <summary>A continuous recording read a segment at a time (e.g. an EDF file), with its events.</summary>
     /// <param name="samples">The samples of the analysed channels.</param>
@@ -48,12 +44,12 @@ public sealed class LoadedInput
     /// <param name="notes">Messages from reading.</param>
     public static LoadedInput FromSource(ISampleSource samples, IReadOnlyList<RecordingEvent> events, IReadOnlyList<string> notes) =>
         new(samples.Source, samples.SampleRate, samples.Channels, events.Select(e => e.Label).ToArray(),
-            notes, null, samples, events, null, 0, 0, 0, null);
+            notes, samples, events, null, 0, 0, 0, null);
 
     /// <summary>Epochs in C order (epoch, channel, sample) with one event label per epoch.</summary>
     public static LoadedInput FromEpochs(string source, double sampleRate, IReadOnlyList<ChannelInfo> channels, double[] data,
         int epochCount, int epochSamples, double firstSampleTime, IReadOnlyList<string> epochLabels) =>
-        new(source, sampleRate, channels, epochLabels, Array.Empty<string>(), null, null, null, data, epochCount, epochSamples,
+        new(source, sampleRate, channels, epochLabels, Array.Empty<string>(), null, null, data, epochCount, epochSamples,
             firstSampleTime, epochLabels);
 
     /// <summary>Where the data came from.</summary>
@@ -71,22 +67,15 @@ public sealed class LoadedInput
     /// <summary>Messages from reading (e.g. signals left out).</summary>
     public IReadOnlyList<string> Notes { get; }
 
-    /// <summary>The continuous recording when it is held in memory (CSV input), or null for input read a segment at a
-    /// time (EDF) and for epochs input.</summary>
-    public Recording? Recording => _recording;
-
-    /// <summary>The padded trials of <paramref name="condition"/>.</summary>
-    public TrialSet Trials(ConditionSpec condition, TimeRange span, int padSamples) =>
-        TrialsOf(condition, span, padSamples);
-
     /// <summary>
     /// The number of trials <see cref="Trials"/> keeps for <paramref name="condition"/>, without reading samples from
     /// a recording (epochs, already in memory, are selected unpadded).
     /// </summary>
     public int TrialCount(ConditionSpec condition, TimeRange span) =>
-        _samples is not null ? TrialCutter.Count(_samples, _events!, condition, span) : TrialsOf(condition, span, 0).TrialCount;
+        _samples is not null ? TrialCutter.Count(_samples, _events!, condition, span) : Trials(condition, span, 0).TrialCount;
 
-    private TrialSet TrialsOf(ConditionSpec condition, TimeRange span, int padSamples) =>
+    /// <summary>The padded trials of <paramref name="condition"/>.</summary>
+    public TrialSet Trials(ConditionSpec condition, TimeRange span, int padSamples) =>
         _samples is not null
             ? TrialCutter.Cut(_samples, _events!, condition, span, padSamples)
             : EpochTrials.Select(Source, _epochs!, _epochCount, Channels.Select(c => c.Label).ToArray(), _epochSamples,
