@@ -11,6 +11,8 @@ internal static class Commands
 {
     public static int Demo(string folder, int? surrogates, int threads, TextWriter output, TextWriter error)
     {
+        if (surrogates is < 0 or > 1_000_000)
+            throw new InputException($"--surrogates: {surrogates} is not a whole number from 0 to 1000000 (0: values without a test).");
         output.WriteLine($"Simulating the demo scenario into {folder} ...");
         var paths = ScenarioFiles.Write(folder, new ScenarioOptions { Seed = ScenarioFiles.DefaultSeed },
             surrogates ?? ScenarioFiles.DefaultSurrogates);
@@ -51,6 +53,7 @@ internal static class Commands
 
     public static int Simulate(string folder, int seed, int? trials, TextWriter output)
     {
+        if (trials is < 2) throw new InputException($"--trials: {trials} is too few; expected at least 2 trials per condition.");
         var options = new ScenarioOptions { Seed = seed };
         if (trials is { } n) options = options with { TrialsPerCondition = n };
         var paths = ScenarioFiles.Write(folder, options);
@@ -63,15 +66,28 @@ internal static class Commands
     public static int Inspect(string file, double? rate, TextWriter output)
     {
         if (!File.Exists(file)) throw new InputException($"{file}: file not found.");
+        if (rate is { } r && !(r > 0 && double.IsFinite(r))) throw new InputException($"--rate: {r} is not a positive number of Hz.");
         string ext = Path.GetExtension(file).ToLowerInvariant();
-        RecordingSummary summary = ext switch
+        RecordingSummary? summary = ext switch
         {
             ".edf" => RecordingSummary.Describe(EdfReader.ReadHeader(file), EdfReader.ReadEvents(file))
                 .WithSidecars(RecordingSidecars.FindBesides(file)),
-            ".csv" => RecordingSummary.Describe(CsvRecording.Read(file, rate ?? throw new InputException($"{file}: a CSV file carries no sampling rate; give --rate in Hz.")), "CSV"),
-            ".npy" => throw new InputException($"{file}: an NPY array holds no channel names or rate; use it through a plan with 'epochs' and 'sample_rate'. Its shape: ({string.Join(", ", NpyArray.Read(file).Shape)})."),
+            ".csv" => RecordingSummary.Describe(CsvRecording.Read(file, rate ?? throw new InputException($"{file}: a CSV file carries no sampling rate; give --rate in Hz.")), "CSV")
+                .WithSidecars(RecordingSidecars.FindBesides(file)),
+            ".npy" => null,
             _ => throw new InputException($"{file}: unknown extension '{ext}'; expected .edf, .csv or .npy."),
         };
+        if (summary is null)
+        {
+            var (shape, dtype, fortran) = NpyArray.ReadHeader(file);
+            output.WriteLine($"file: {file}");
+            output.WriteLine($"format: NPY array, dtype {dtype}, {(fortran ? "Fortran" : "C")} order");
+            output.WriteLine($"shape: ({string.Join(", ", shape)})");
+            output.WriteLine(shape.Count == 3
+                ? $"as epochs: {shape[0]} trials x {shape[1]} channels x {shape[2]} samples; analyse it through a plan with 'sample_rate' and 'epochs' (first_sample_time, labels, channel_labels)."
+                : $"an epochs array needs 3 dimensions (trials x channels x samples); this one has {shape.Count}.");
+            return 0;
+        }
         foreach (var line in summary.Format()) output.WriteLine(line);
         return 0;
     }
@@ -82,7 +98,12 @@ internal static class Commands
         using var stop = new CancellationTokenSource();
         ConsoleCancelEventHandler onCancel = (_, e) => { e.Cancel = true; stop.Cancel(); };
         Console.CancelKeyPress += onCancel;
-        try { return AnalysisRunner.Run(plan, progress, threads, commandLine, stop.Token); }
+        void Warn(string warning)
+        {
+            progress.End();
+            error.WriteLine($"coupling: warning: {warning}");
+        }
+        try { return AnalysisRunner.Run(plan, progress, threads, commandLine, stop.Token, Warn); }
         finally
         {
             Console.CancelKeyPress -= onCancel;
@@ -95,12 +116,13 @@ internal static class Commands
         output.WriteLine($"Results: {outcome.OutputFolder}");
         output.WriteLine($"  report:   {Path.Combine(outcome.OutputFolder, "report.md")}");
         output.WriteLine($"  edges:    {Path.Combine(outcome.OutputFolder, "edges.tsv")}");
-        output.WriteLine($"  figures:  {Path.Combine(outcome.OutputFolder, "figures")}");
+        if (Directory.Exists(Path.Combine(outcome.OutputFolder, "figures")))
+            output.WriteLine($"  figures:  {Path.Combine(outcome.OutputFolder, "figures")}");
         if (outcome.Contrasts.Count > 0)
             output.WriteLine($"  contrasts: {Path.Combine(outcome.OutputFolder, "contrasts.tsv")}");
         foreach (var c in outcome.Conditions)
             output.WriteLine($"  {c.Condition}: {c.Trials} trials{(c.Dropped.Count > 0 ? $", {c.Dropped.Count} dropped (listed in the manifest)" : "")}");
-        foreach (var w in outcome.Warnings) output.WriteLine($"  warning: {w}");
+        if (outcome.Warnings.Count > 0) output.WriteLine($"  {outcome.Warnings.Count} warning(s), shown before the computation and in the report");
         output.WriteLine($"  {outcome.Results.Sum(r => r.Significant.Count(s => s))} significant pairs in {outcome.Results.Count} tables; {outcome.Elapsed.TotalSeconds:0.0} s");
     }
 }

@@ -24,7 +24,7 @@ public static class CsvRecording
         }
         catch (Exception e) when (e is IOException or UnauthorizedAccessException)
         {
-            throw new InputException($"{path}: cannot read the CSV file: {e.Message}", e);
+            throw FileErrors.Reading(path, "CSV file", e);
         }
         using (reader)
         {
@@ -32,6 +32,8 @@ public static class CsvRecording
             if (first is null || first.Trim().Length == 0)
                 throw new InputException($"{path}: line 1: expected a header row of channel labels.");
             var labels = first.TrimStart('\uFEFF').Split(',').Select(Unquote).ToArray();
+            if (labels.Length == 1 && OtherSeparator(first) is { } other)
+                throw new InputException($"{path}: line 1: the header has no commas but is separated by {other}; a CSV recording must separate its columns with commas (and use '.' as the decimal point).");
             var seen = new HashSet<string>(StringComparer.Ordinal);
             for (int c = 0; c < labels.Length; c++)
                 if (labels[c].Length == 0 || !seen.Add(labels[c]))
@@ -46,7 +48,7 @@ public static class CsvRecording
                 if (line.Trim().Length == 0) continue;
                 var cells = line.Split(',');
                 if (cells.Length != labels.Length)
-                    throw new InputException($"{path}: line {lineNumber}: {cells.Length} cells, but the header has {labels.Length} columns.");
+                    throw new InputException($"{path}: line {lineNumber}: {cells.Length} cells, but the header has {labels.Length} columns{SeparatorHint(line)}.");
                 int sample = columns[0].Count;
                 for (int c = 0; c < cells.Length; c++)
                 {
@@ -54,10 +56,10 @@ public static class CsvRecording
                     string where = $"{path}: line {lineNumber}, column {c + 1} (channel '{labels[c]}', sample {sample})";
                     if (cell.Length == 0)
                         throw new InputException($"{where}: empty cell; expected a number.");
-                    if (!double.TryParse(cell, NumberStyles.Float, CultureInfo.InvariantCulture, out double v))
-                        throw new InputException($"{where}: '{cell}' is not a number.");
+                    if (!SampleText.TryParse(cell, out double v))
+                        throw new InputException($"{where}: '{cell}' is not a number{SeparatorHint(line)}.");
                     if (!double.IsFinite(v))
-                        throw new InputException($"{where}: '{cell}' is not finite; samples must be finite numbers.");
+                        throw new InputException($"{where}: '{cell}' is {SampleText.NonFinite(v)}; samples must be finite numbers.");
                     columns[c].Add(v);
                 }
             }
@@ -65,6 +67,13 @@ public static class CsvRecording
             return new Recording(path, sampleRate, channels, columns.Select(c => c.ToArray()).ToArray(), Array.Empty<RecordingEvent>());
         }
     }
+
+    /// <summary>"semicolons" or "tabs" when the line is split by one of them instead of commas; else null.</summary>
+    private static string? OtherSeparator(string line) =>
+        line.Contains(';', StringComparison.Ordinal) ? "semicolons" : line.Contains('\t', StringComparison.Ordinal) ? "tabs" : null;
+
+    private static string SeparatorHint(string line) =>
+        OtherSeparator(line) is { } other ? $" (the line holds {other}; columns must be separated by commas, with '.' as the decimal point)" : "";
 
     private static string Unquote(string s)
     {

@@ -104,7 +104,7 @@ public static class EdfReader
         }
         catch (Exception e) when (e is IOException or UnauthorizedAccessException)
         {
-            throw new InputException($"{path}: cannot open the EDF file: {e.Message}", e);
+            throw FileErrors.Reading(path, "EDF file", e);
         }
     }
 

@@ -15,7 +15,8 @@ public static class InputLoader
     public static LoadedInput Load(Plan plan)
     {
         string path = plan.Recording;
-        if (!File.Exists(path)) throw new InputException($"{plan.Source}: recording: file '{path}' not found.");
+        if (!File.Exists(path)) throw new InputException($"{plan.Where("recording")}: file '{path}' not found.");
+        if (plan.Events is not null && !File.Exists(plan.Events)) throw new InputException($"{plan.Where("events")}: file '{plan.Events}' not found.");
         string ext = Path.GetExtension(path).ToLowerInvariant();
         if (ext == ".npy") return LoadEpochs(plan);
 
@@ -98,8 +99,11 @@ public static class InputLoader
         int epochs = array.Shape[0], channels = array.Shape[1], samples = array.Shape[2];
         if (spec.ChannelLabels.Count != channels)
             throw new InputException($"{plan.Source}: epochs.channel_labels lists {spec.ChannelLabels.Count} channels, but {plan.Recording} holds {channels}.");
-        if (!File.Exists(spec.LabelsFile)) throw new InputException($"{plan.Source}: epochs.labels: file '{spec.LabelsFile}' not found.");
-        var labels = File.ReadAllLines(spec.LabelsFile).Select(l => l.Trim()).Where(l => l.Length > 0).ToArray();
+        if (!File.Exists(spec.LabelsFile)) throw new InputException($"{plan.Where("epochs.labels")}: file '{spec.LabelsFile}' not found.");
+        string[] lines;
+        try { lines = File.ReadAllLines(spec.LabelsFile); }
+        catch (Exception e) when (FileErrors.IsFileError(e)) { throw FileErrors.Reading(spec.LabelsFile, "labels file", e); }
+        var labels = lines.Select(l => l.Trim()).Where(l => l.Length > 0).ToArray();
         if (labels.Length != epochs)
             throw new InputException($"{spec.LabelsFile}: {labels.Length} labels, but {plan.Recording} holds {epochs} epochs (one label per line, one line per epoch).");
 

@@ -68,4 +68,12 @@ public sealed record Plan
 
     /// <summary>Worker threads for surrogate draws; 0 for all cores.</summary>
     public int Threads { get; init; }
+
+    /// <summary>Line in <see cref="Source"/> of each top-level key and of each key one level below ("bands.theta"); empty for generated plans.</summary>
+    [System.Text.Json.Serialization.JsonIgnore]
+    public IReadOnlyDictionary<string, int> KeyLines { get; init; } = new Dictionary<string, int>();
+
+    /// <summary>Where a key is in the plan, for messages: "plan.yaml, line 12: bands.theta", or without the line when unknown.</summary>
+    public string Where(string key) =>
+        KeyLines.TryGetValue(key, out int line) ? $"{Source}, line {line}: {key}" : $"{Source}: {key}";
 }

@@ -24,9 +24,12 @@ public static class PlanReader
     /// <summary>Reads the plan at <paramref name="path"/>; relative paths inside it are taken from the plan's folder.</summary>
     public static Plan Read(string path)
     {
+        if (Directory.Exists(path)) throw new InputException($"{path}: is a folder; expected a plan file (YAML).");
         if (!File.Exists(path)) throw new InputException($"{path}: plan file not found.");
-        using var reader = new StreamReader(path);
-        return Parse(reader, Path.GetFullPath(path));
+        string text;
+        try { text = File.ReadAllText(path); }
+        catch (Exception e) when (FileErrors.IsFileError(e)) { throw FileErrors.Reading(path, "plan file", e); }
+        return Parse(new StringReader(text), Path.GetFullPath(path));
     }
 
     /// <summary>Parses plan text; <paramref name="source"/> names it in errors and anchors relative paths.</summary>
@@ -92,7 +95,7 @@ public static class PlanReader
             : new DecompositionSpec("fir-hilbert", null, null, null, null);
         var measures = ReadMeasures(ctx, ctx.Required(map, root, "measures", "the plan"));
 
-        int surrogates = map.TryGetValue("surrogates", out var su) ? ctx.Int(su, "surrogates", 1, 1_000_000) : 1000;
+        int surrogates = map.TryGetValue("surrogates", out var su) ? ctx.Int(su, "surrogates", 0, 1_000_000) : 1000;
         ulong seed = 0;
         if (map.TryGetValue("seed", out var se))
         {
@@ -131,7 +134,23 @@ public static class PlanReader
             Output = output,
             Figures = figures,
             Threads = threads,
+            KeyLines = KeyLines(root),
         };
+    }
+
+    /// <summary>The line of every top-level key and of every key one level below it ("bands.theta").</summary>
+    private static Dictionary<string, int> KeyLines(YamlMappingNode root)
+    {
+        var lines = new Dictionary<string, int>(StringComparer.Ordinal);
+        foreach (var (k, v) in root.Children)
+        {
+            if (k is not YamlScalarNode { Value: { } key }) continue;
+            lines.TryAdd(key, (int)k.Start.Line);
+            if (v is YamlMappingNode inner)
+                foreach (var (ik, _) in inner.Children)
+                    if (ik is YamlScalarNode { Value: { } name }) lines.TryAdd($"{key}.{name}", (int)ik.Start.Line);
+        }
+        return lines;
     }
 
     private static IReadOnlyList<ContrastSpec> ReadContrasts(Context ctx, YamlNode node, IReadOnlyList<ConditionSpec> conditions)
@@ -242,7 +261,7 @@ public static class PlanReader
             try { list.Add(MeasureCatalog.Parse(k)); }
             catch (InputException)
             {
-                throw ctx.Error(node, "measures", $"'{k}' is not a known measure; allowed: all, {string.Join(", ", MeasureCatalog.All.Select(MeasureCatalog.Key))}");
+                throw ctx.Error(node, "measures", $"'{k}' is not a known measure{Spelling.Hint(k, MeasureCatalog.All.Select(MeasureCatalog.Key))}; allowed: all, {string.Join(", ", MeasureCatalog.All.Select(MeasureCatalog.Key))}");
             }
         }
         return list;
@@ -281,7 +300,7 @@ public static class PlanReader
             {
                 string key = Scalar(k, where);
                 if (!allowed.Contains(key))
-                    throw Error(k, where == "the plan" ? key : $"{where}.{key}", $"unknown key; allowed here: {string.Join(", ", allowed)}");
+                    throw Error(k, where == "the plan" ? key : $"{where}.{key}", $"unknown key{Spelling.Hint(key, allowed)}; allowed here: {string.Join(", ", allowed)}");
                 if (!result.TryAdd(key, v)) throw Error(k, key, "given twice");
             }
             return result;
