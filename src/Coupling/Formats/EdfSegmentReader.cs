@@ -46,14 +46,16 @@ public sealed class EdfSegmentReader : ISampleSource
     /// <param name="path">The file to read.</param>
     /// <param name="selectedChannels">Labels of the signals to read (trimmed labels, ordinal match), or null for all
     /// ordinary signals at the most common sampling rate, as in <see cref="EdfReader.Read"/>.</param>
+    /// <param name="keepCompleteRecords">For a file shorter than its header promises: read the complete data records
+    /// it holds (saying how many in <see cref="Notes"/>) instead of refusing it.</param>
     /// <returns>The reader, with the events and notes <see cref="EdfReader.Read"/> would give.</returns>
     /// <exception cref="InputException">The file is missing, EDF+D, malformed or truncated; a selected label is unknown;
     /// or selected signals differ in sampling rate.</exception>
-    public static EdfSegmentReader Open(string path, IReadOnlyCollection<string>? selectedChannels = null)
+    public static EdfSegmentReader Open(string path, IReadOnlyCollection<string>? selectedChannels = null, bool keepCompleteRecords = false)
     {
         using var stream = EdfReader.Open(path);
-        var header = EdfReader.ParseHeader(path, stream);
         var notes = new List<string>();
+        var header = EdfReader.ParseHeader(path, stream, keepCompleteRecords, notes);
         var selected = EdfReader.SelectReadable(header, selectedChannels, notes);
         var signals = header.Signals;
         int perRecord = signals[selected[0]].SamplesPerRecord;
@@ -64,7 +66,7 @@ public sealed class EdfSegmentReader : ISampleSource
         // A channel is flat when every physical sample equals its first (exact comparison, as RecordingChecks does).
         var flat = Enumerable.Repeat(true, selected.Length).ToArray();
         var first = new double[selected.Length];
-        var scratch = new double[perRecord];
+        var scratch = new double[header.RecordCount > 0 ? perRecord : 0]; // sized only when the file backs a record
         var offsets = EdfReader.SignalOffsets(header);
         var events = EdfReader.ScanRecords(header, stream, notes, (r, record) =>
         {

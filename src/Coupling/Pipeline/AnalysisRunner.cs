@@ -80,7 +80,7 @@ public static class AnalysisRunner
                 return 0;
             });
 
-        var warnings = new List<string>(BandWarnings.For(plan, decompositions, input.SampleRate));
+        var warnings = new List<string>(BandWarnings.For(plan, decompositions, input.SampleRate, input.EpochSamples));
         int pairs = Measures.PairIndex.Count(input.Channels.Count);
         int needed = (int)Math.Ceiling(pairs / plan.Q) - 1;
         if (plan.Surrogates > 0 && plan.Surrogates < needed)

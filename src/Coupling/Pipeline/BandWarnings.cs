@@ -13,17 +13,18 @@ public static class BandWarnings
 
     /// <summary>
     /// One warning per band whose lowest frequency completes fewer than <see cref="MinimumCycles"/> cycles in the analysis
-    /// window, and one per band whose filter (FIR taps or wavelet support) is longer than the trial span, so that the band
-    /// signal inside the trial depends mostly on the data around it.
+    /// window, and, for input cut into epochs, one per band whose filter (FIR taps or wavelet support) is longer than an
+    /// epoch (the trial plus the padding it holds): the band signal is then shaped mostly by the reflected padding.
+    /// Continuous recordings have real data around every trial, so the second warning does not apply to them.
     /// </summary>
     /// <param name="plan">The plan (window, trial span, bands in order).</param>
     /// <param name="decompositions">The decomposition of each band, in the plan's band order.</param>
     /// <param name="sampleRate">Sampling rate in Hz.</param>
-    public static IReadOnlyList<string> For(Plan plan, IReadOnlyList<IBandDecomposition> decompositions, double sampleRate)
+    /// <param name="epochSamples">Samples per epoch for input cut into epochs; null for a continuous recording.</param>
+    public static IReadOnlyList<string> For(Plan plan, IReadOnlyList<IBandDecomposition> decompositions, double sampleRate, int? epochSamples)
     {
         var inv = CultureInfo.InvariantCulture;
         var warnings = new List<string>();
-        int trialSamples = (int)Math.Round(plan.Trial.Length * sampleRate);
         for (int i = 0; i < plan.Bands.Count; i++)
         {
             var band = plan.Bands[i];
@@ -34,11 +35,11 @@ public static class BandWarnings
                     $"fewer than {F(MinimumCycles)}; its phase and envelope there are dominated by the filter's own response. Use a longer window or a higher band.");
             var p = decompositions[i].Info.Parameters;
             double length = p.TryGetValue("filter_taps", out double taps) ? taps : p.TryGetValue("support_samples", out double support) ? support : 0;
-            if (length > trialSamples)
+            if (epochSamples is { } epoch && length > epoch)
                 warnings.Add(
                     $"Band '{band.Name}' ({F(band.Low)}-{F(band.High)} Hz): the filter is {length.ToString("0", inv)} samples ({(length / sampleRate).ToString("0.###", inv)} s) long, longer than the " +
-                    $"{trialSamples}-sample trial span; the band signal inside each trial then depends mostly on the data around it (or its reflection). " +
-                    "Use a longer trial span, a wider transition or a higher band.");
+                    $"{epoch}-sample epochs (trial plus padding); the band signal inside each trial then depends mostly on the reflected padding. " +
+                    "Use longer epochs, a wider transition or a higher band.");
         }
         return warnings;
     }

@@ -45,7 +45,7 @@ public static class InputLoader
     private static LoadedInput LoadEdf(Plan plan, SidecarFiles sidecars)
     {
         string path = plan.Recording;
-        var reader = EdfSegmentReader.Open(path, plan.Channels);
+        var reader = EdfSegmentReader.Open(path, plan.Channels, plan.KeepCompleteRecords);
         string? eventsFile = plan.Events ?? sidecars.Events;
         var events = eventsFile is null ? reader.Events : RecordingSidecars.SortEvents(EventsTsv.Read(eventsFile));
         var kept = RecordingSidecars.ApplyToChannels(reader.Channels, reader.Notes,

@@ -64,6 +64,9 @@ public sealed class LoadedInput
     /// <summary>Label of every event (or epoch), with repeats.</summary>
     public IReadOnlyList<string> EventLabels { get; }
 
+    /// <summary>Samples per epoch for input cut into epochs (trial plus the padding it holds); null for a continuous recording.</summary>
+    public int? EpochSamples => _epochs is null ? null : _epochSamples;
+
     /// <summary>Messages from reading (e.g. signals left out).</summary>
     public IReadOnlyList<string> Notes { get; }
 

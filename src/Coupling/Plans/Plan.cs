@@ -69,6 +69,10 @@ public sealed record Plan
     /// <summary>Worker threads for surrogate draws; 0 for all cores.</summary>
     public int Threads { get; init; }
 
+    /// <summary>For an EDF file shorter than its header promises: analyse the complete data records it holds (and say how
+    /// many in the manifest and report) instead of refusing it.</summary>
+    public bool KeepCompleteRecords { get; init; }
+
     /// <summary>Line in <see cref="Source"/> of each top-level key and of each key one level below ("bands.theta"); empty for generated plans.</summary>
     [System.Text.Json.Serialization.JsonIgnore]
     public IReadOnlyDictionary<string, int> KeyLines { get; init; } = new Dictionary<string, int>();

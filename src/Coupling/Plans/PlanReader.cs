@@ -18,7 +18,7 @@ public static class PlanReader
     [
         "recording", "events", "channels", "sample_rate", "epochs", "conditions", "trial", "window", "evoked",
         "bands", "decomposition", "measures", "surrogates", "seed", "correction", "output", "figures", "threads",
-        "contrasts",
+        "contrasts", "truncated_recording",
     ];
 
     /// <summary>Reads the plan at <paramref name="path"/>; relative paths inside it are taken from the plan's folder.</summary>
@@ -111,6 +111,8 @@ public static class PlanReader
         string output = ctx.Path(ctx.Required(map, root, "output", "the plan"), "output");
         bool figures = !map.TryGetValue("figures", out var fi) || ctx.Bool(fi, "figures");
         int threads = map.TryGetValue("threads", out var th) ? ctx.Int(th, "threads", 0, 4096) : 0;
+        bool keepComplete = map.TryGetValue("truncated_recording", out var tr)
+            && ctx.Choice(tr, "truncated_recording", ["refuse", "keep-complete-records"]) == "keep-complete-records";
 
         return new Plan
         {
@@ -134,6 +136,7 @@ public static class PlanReader
             Output = output,
             Figures = figures,
             Threads = threads,
+            KeepCompleteRecords = keepComplete,
             KeyLines = KeyLines(root),
         };
     }
@@ -330,6 +333,13 @@ public static class PlanReader
             string s = Scalar(node, key);
             return int.TryParse(s, NumberStyles.AllowLeadingSign, CultureInfo.InvariantCulture, out int v) && v >= min && v <= max
                 ? v : throw Error(node, key, $"'{s}' is not a whole number from {min} to {max}");
+        }
+
+        public string Choice(YamlNode node, string key, IReadOnlyList<string> allowed)
+        {
+            string v = Scalar(node, key);
+            return allowed.Contains(v) ? v
+                : throw Error(node, key, $"'{v}' is not allowed{Spelling.Hint(v, allowed)}; use {string.Join(" or ", allowed.Select(a => $"'{a}'"))}");
         }
 
         public bool Bool(YamlNode node, string key) => Scalar(node, key) switch
