@@ -40,7 +40,7 @@ public static class PlanReader
         try { stream.Load(new StringReader(all)); }
         catch (YamlException e)
         {
-            throw new InputException($"{source}, line {e.Start.Line}: not valid YAML ({e.Message}).", e);
+            throw new InputException($"{source}, line {e.Start.Line}: not valid YAML ({e.Message.Trim().TrimEnd('.')}).", e);
         }
         catch (InvalidOperationException e)
         {

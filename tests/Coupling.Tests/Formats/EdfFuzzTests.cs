@@ -200,6 +200,26 @@ public sealed class EdfFuzzTests : IDisposable
     }
 
     [Fact]
+    public void A_tal_closed_right_after_its_onset_gives_the_stamp_and_no_event()
+    {
+        // EDF+ (Kemp and Olivan 2003, section 2.2.4) closes every annotation text with 0x14; "+2 0x14 0x00" has none.
+        var b = new EdfBuilder();
+        b.Signals.Add(new("EEG A1", "uV", "-500", "500", "-2048", "2047", 4));
+        b.Signals.Add(new("EDF Annotations", "", "-1", "1", "-32768", "32767", 20));
+        for (int r = 0; r < 3; r++)
+        {
+            var annotation = new byte[40];
+            EdfBuilder.Tal(r == 2 ? "+2|" : $"+{r}||").CopyTo(annotation, 0);
+            if (r == 1) EdfBuilder.Tal("+1.5|cue|").CopyTo(annotation, 10);
+            b.Records.Add([new short[] { 1, -1, 2, -2 }, annotation]);
+        }
+        string path = _folder.File("bare.edf");
+        File.WriteAllBytes(path, b.Build());
+        var events = EdfReader.ReadEvents(path);
+        Assert.Equal([new RecordingEvent(1.5, 0, "cue")], events);
+    }
+
+    [Fact]
     public void A_truncated_file_keeps_its_complete_records_when_asked_and_says_how_many()
     {
         byte[] valid = ValidFile();
