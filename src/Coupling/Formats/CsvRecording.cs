@@ -10,10 +10,12 @@ public static class CsvRecording
     /// <summary>Reads the file; channel types and units are "unknown" (a channels.tsv can supply them).</summary>
     /// <param name="path">The CSV file.</param>
     /// <param name="sampleRate">Sampling rate in Hz (the file does not carry one).</param>
+    /// <param name="allowNonFinite">Keep NaN and infinite samples (nan, inf, -inf in any case) instead of refusing them,
+    /// for a caller that leaves them out later.</param>
     /// <returns>The recording, with no events.</returns>
     /// <exception cref="InputException">The header is missing or repeats a label, a row has the wrong number of cells,
     /// or a cell is empty, not a number, NaN or infinite (file, line, column and sample index named).</exception>
-    public static Recording Read(string path, double sampleRate)
+    public static Recording Read(string path, double sampleRate, bool allowNonFinite = false)
     {
         if (!(sampleRate > 0) || !double.IsFinite(sampleRate))
             throw new InputException($"{path}: sampling rate {sampleRate} Hz; expected a positive number of Hz.");
@@ -58,7 +60,7 @@ public static class CsvRecording
                         throw new InputException($"{where}: empty cell; expected a number.");
                     if (!SampleText.TryParse(cell, out double v))
                         throw new InputException($"{where}: '{cell}' is not a number{SeparatorHint(line)}.");
-                    if (!double.IsFinite(v))
+                    if (!double.IsFinite(v) && !allowNonFinite)
                         throw new InputException($"{where}: '{cell}' is {SampleText.NonFinite(v)}; samples must be finite numbers.");
                     columns[c].Add(v);
                 }

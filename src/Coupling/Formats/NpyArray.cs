@@ -44,8 +44,9 @@ public sealed partial class NpyArray
     /// <param name="path">The .npy file.</param>
     /// <returns>The array.</returns>
     /// <exception cref="InputException">Wrong magic, unsupported version or dtype, malformed header, truncated data,
-    /// or a NaN or infinite value (its index named).</exception>
-    public static NpyArray Read(string path)
+    /// or a NaN or infinite value (its index named) unless <paramref name="allowNonFinite"/>.</exception>
+    /// <param name="allowNonFinite">Keep NaN and infinite values instead of refusing them, for a caller that leaves them out later.</param>
+    public static NpyArray Read(string path, bool allowNonFinite = false)
     {
         var bytes = ReadBytes(path);
         var (shape, dtype, fortran, dataStart) = ParseHeader(path, bytes);
@@ -68,7 +69,7 @@ public sealed partial class NpyArray
             };
         }
         var values = fortran && shape.Count > 1 ? FortranToC(raw, shape) : raw;
-        for (int i = 0; i < values.Length; i++)
+        for (int i = 0; i < values.Length && !allowNonFinite; i++)
             if (!double.IsFinite(values[i]))
                 throw new InputException($"{path}: value at index ({string.Join(", ", Unravel(i, shape))}) is {SampleText.NonFinite(values[i])}; samples must be finite numbers (the last index is the sample, the one before it the channel).");
         return new NpyArray(shape, values);

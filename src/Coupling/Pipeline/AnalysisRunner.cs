@@ -54,6 +54,7 @@ public static class AnalysisRunner
             .ToArray();
         var steps = decompositions.Select(d => plan.Decomposition.TimeStep ?? TimeStep.Default(d.Info, input.SampleRate)).ToArray();
         int pad = decompositions.Max(d => d.PadSamples);
+        if (plan.UnusableData == UnusableData.DropTrials) input = input.WithoutUnusableTrials(plan.Trial, pad);
 
         // Check every condition first, so that input problems (unknown labels, too few trials) surface before any long
         // step. Trials are only counted here; each condition is cut when its turn comes, so only one condition's trials
@@ -68,7 +69,7 @@ public static class AnalysisRunner
                     throw new InputException($"{plan.Where($"conditions.{condition.Name}")}: event label '{label}' does not occur in {input.Source}{Plans.Spelling.Hint(label, known)}; labels there: {string.Join(", ", known)}.");
                 }
             int count = input.TrialCount(condition, plan.Trial);
-            TrialChecks.CheckCount(plan, condition, input.EventLabels.Count(condition.EventLabels.Contains), count);
+            TrialChecks.CheckCount(plan, condition, input.EventLabels.Count(condition.EventLabels.Contains), count, input.UnusableTrialCount(condition));
             if (plan.Surrogates > 0)
                 InPlan(plan, "surrogates", () => { SurrogateTest.CheckFeasible(count, plan.Surrogates, condition.Name); return 0; });
             trialCounts[condition.Name] = count;

@@ -19,18 +19,26 @@ public static class TrialChecks
     /// <param name="plan">The plan (for the condition's line, the trial span and the surrogate count).</param>
     /// <param name="condition">The condition.</param>
     /// <param name="events">Events with the condition's labels in the input.</param>
-    /// <param name="kept">Trials that fit inside the recording.</param>
+    /// <param name="kept">Trials that fit inside the recording and hold no unusable sample.</param>
+    /// <param name="unusable">Trials left out for unusable samples (unusable_data: drop-trials).</param>
     /// <exception cref="InputException">Too few trials.</exception>
-    public static void CheckCount(Plan plan, ConditionSpec condition, int events, int kept)
+    public static void CheckCount(Plan plan, ConditionSpec condition, int events, int kept, int unusable = 0)
     {
         int minimum = Minimum(plan.Surrogates);
         if (kept >= minimum) return;
         string where = plan.Where($"conditions.{condition.Name}");
         string span = string.Create(CultureInfo.InvariantCulture, $"{plan.Trial.Start:G6}..{plan.Trial.End:G6} s");
-        if (kept == 0 && events > 0)
+        if (kept == 0 && events > 0 && unusable == 0)
             throw new InputException($"{where}: all {events} trials run past an end of the recording (trial span {span} around each onset); " +
                 "check that the events belong to this recording and that the trial span fits around them.");
-        string outside = events > kept ? $" ({events - kept} of its {events} events run past an end of the recording with the trial span {span})" : "";
+        int past = events - kept - unusable;
+        string outside = (past, unusable) switch
+        {
+            ( > 0, > 0) => $" ({unusable} of its {events} trials hold unusable samples, {past} run past an end of the recording with the trial span {span})",
+            ( > 0, _) => $" ({past} of its {events} events run past an end of the recording with the trial span {span})",
+            (_, > 0) => $" ({unusable} of its {events} trials hold unusable samples and were left out)",
+            _ => "",
+        };
         string need = plan.Surrogates > 0
             ? $"trial-shuffle surrogates need at least {minimum} trials per condition ({kept} trial{(kept == 1 ? "" : "s")} allow at most {Factorial(kept)} trial order{(kept < 2 ? "" : "s")}); give more trials, or 'surrogates: 0' for values without a test"
             : $"connectivity across trials needs at least {minimum} trials per condition";

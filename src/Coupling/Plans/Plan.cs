@@ -73,6 +73,10 @@ public sealed record Plan
     /// many in the manifest and report) instead of refusing it.</summary>
     public bool KeepCompleteRecords { get; init; }
 
+    /// <summary>What to do with NaN or infinite samples, flat channels and clipped EDF samples: "refuse" (the default),
+    /// "drop-trials" or "drop-channels" (see <see cref="Pipeline.UnusableData"/>).</summary>
+    public string UnusableData { get; init; } = Pipeline.UnusableData.Refuse;
+
     /// <summary>Line in <see cref="Source"/> of each top-level key and of each key one level below ("bands.theta"); empty for generated plans.</summary>
     [System.Text.Json.Serialization.JsonIgnore]
     public IReadOnlyDictionary<string, int> KeyLines { get; init; } = new Dictionary<string, int>();

@@ -18,7 +18,7 @@ public static class PlanReader
     [
         "recording", "events", "channels", "sample_rate", "epochs", "conditions", "trial", "window", "evoked",
         "bands", "decomposition", "measures", "surrogates", "seed", "correction", "output", "figures", "threads",
-        "contrasts", "truncated_recording",
+        "contrasts", "truncated_recording", "unusable_data",
     ];
 
     /// <summary>Reads the plan at <paramref name="path"/>; relative paths inside it are taken from the plan's folder.</summary>
@@ -137,6 +137,7 @@ public static class PlanReader
             Figures = figures,
             Threads = threads,
             KeepCompleteRecords = keepComplete,
+            UnusableData = map.TryGetValue("unusable_data", out var ud) ? ctx.Choice(ud, "unusable_data", Pipeline.UnusableData.Policies) : Pipeline.UnusableData.Refuse,
             KeyLines = KeyLines(root),
         };
     }
