@@ -69,7 +69,7 @@ public static class CommandLine
         var threads = new Option<int>("--threads") { Description = "Worker threads (0: all cores). Results do not depend on it.", DefaultValueFactory = _ => 0 };
 
         var demoOut = new Option<DirectoryInfo>("--output", "-o") { Description = "Folder for the demo's data and results.", DefaultValueFactory = _ => new DirectoryInfo("coupling-demo") };
-        var demoSurrogates = new Option<int?>("--surrogates") { Description = "Surrogate draws per condition and band (default: the demo plan's)." };
+        var demoSurrogates = new Option<int?>("--surrogates") { Description = "Surrogate draws per condition and band (default: the demo plan's; 0: values without a test)." };
         var demo = new Command("demo", "Simulate the built-in scenario with known ground truth, analyse it end to end and check the result against the truth.")
         {
             demoOut, demoSurrogates, threads,

@@ -68,7 +68,7 @@ public static class AnalysisRunner
                     var known = input.EventLabels.Distinct().Order(StringComparer.Ordinal).ToArray();
                     throw new InputException($"{plan.Where($"conditions.{condition.Name}")}: event label '{label}' does not occur in {input.Source}{Plans.Spelling.Hint(label, known)}; labels there: {string.Join(", ", known)}.");
                 }
-            int count = input.TrialCount(condition, plan.Trial);
+            int count = InPlan(plan, "trial", () => input.TrialCount(condition, plan.Trial));
             TrialChecks.CheckCount(plan, condition, input.EventLabels.Count(condition.EventLabels.Contains), count, input.UnusableTrialCount(condition));
             if (plan.Surrogates > 0)
                 InPlan(plan, "surrogates", () => { SurrogateTest.CheckFeasible(count, plan.Surrogates, condition.Name); return 0; });
