@@ -63,27 +63,29 @@ public static class CommandLine
             "tested against trial-shuffle surrogates. For research use only; not a medical device.");
 
         var threads = new Option<int>("--threads") { Description = "Worker threads (0: all cores). Results do not depend on it.", DefaultValueFactory = _ => 0 };
+        var force = new Option<bool>("--force") { Description = "Replace an earlier results folder of this tool at the output (never a folder holding other files)." };
+        var scenarioForce = new Option<bool>("--force") { Description = "Replace an earlier scenario written by this tool in the folder (never a folder holding other files)." };
 
         var demoOut = new Option<DirectoryInfo>("--output", "-o") { Description = "Folder for the demo's data and results.", DefaultValueFactory = _ => new DirectoryInfo("coupling-demo") };
         var demoSurrogates = new Option<int?>("--surrogates") { Description = "Surrogate draws per condition and band (default: the demo plan's)." };
         var demo = new Command("demo", "Simulate the built-in scenario with known ground truth, analyse it end to end and check the result against the truth.")
         {
-            demoOut, demoSurrogates, threads,
+            demoOut, demoSurrogates, threads, scenarioForce,
         };
-        demo.SetAction(r => Commands.Demo(r.GetValue(demoOut)!.FullName, r.GetValue(demoSurrogates), r.GetValue(threads), output, error));
+        demo.SetAction(r => Commands.Demo(r.GetValue(demoOut)!.FullName, r.GetValue(demoSurrogates), r.GetValue(threads), r.GetValue(scenarioForce), output, error));
 
         var planArg = new Argument<FileInfo>("plan") { Description = "The plan file (YAML) naming recording, conditions, bands, measures, surrogates and output." };
-        var run = new Command("run", "Run the analysis a plan file describes.") { planArg, threads };
-        run.SetAction(r => Commands.RunPlan(r.GetValue(planArg)!.FullName, r.GetValue(threads), output, error));
+        var run = new Command("run", "Run the analysis a plan file describes.") { planArg, threads, force };
+        run.SetAction(r => Commands.RunPlan(r.GetValue(planArg)!.FullName, r.GetValue(threads), r.GetValue(force), output, error));
 
         var simOut = new Option<DirectoryInfo>("--output", "-o") { Description = "Folder to write the recording (EDF+), truth.json and a plan into.", DefaultValueFactory = _ => new DirectoryInfo("coupling-scenario") };
         var simSeed = new Option<int>("--seed") { Description = "Seed of the simulation.", DefaultValueFactory = _ => ScenarioFiles.DefaultSeed };
         var simTrials = new Option<int?>("--trials") { Description = "Trials per condition (default: the scenario's)." };
         var simulate = new Command("simulate", "Write the invented scenario with known ground truth as an EDF+ recording with events, truth.json and a ready plan.")
         {
-            simOut, simSeed, simTrials,
+            simOut, simSeed, simTrials, scenarioForce,
         };
-        simulate.SetAction(r => Commands.Simulate(r.GetValue(simOut)!.FullName, r.GetValue(simSeed), r.GetValue(simTrials), output));
+        simulate.SetAction(r => Commands.Simulate(r.GetValue(simOut)!.FullName, r.GetValue(simSeed), r.GetValue(simTrials), r.GetValue(scenarioForce), output));
 
         var fileArg = new Argument<FileInfo>("file") { Description = "A recording: EDF/EDF+ (.edf), CSV (.csv) or NPY (.npy)." };
         var rate = new Option<double?>("--rate") { Description = "Sampling rate in Hz, for CSV files (which do not carry one)." };

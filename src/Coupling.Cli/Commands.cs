@@ -9,12 +9,13 @@ namespace Coupling.Cli;
 /// <summary>The actions behind the commands: each calls the library and prints through the given writers.</summary>
 internal static class Commands
 {
-    public static int Demo(string folder, int? surrogates, int threads, TextWriter output, TextWriter error)
+    public static int Demo(string folder, int? surrogates, int threads, bool force, TextWriter output, TextWriter error)
     {
+        ScenarioFolder.Check(folder, force);
         output.WriteLine($"Simulating the demo scenario into {folder} ...");
         var paths = ScenarioFiles.Write(folder, new ScenarioOptions { Seed = ScenarioFiles.DefaultSeed },
             surrogates ?? ScenarioFiles.DefaultSurrogates);
-        var plan = PlanReader.Read(paths.Plan);
+        var plan = PlanReader.Read(paths.Plan) with { Overwrite = force };
         var outcome = Execute(plan, threads, $"coupling demo --output {folder}", error);
         PrintOutcome(outcome, output);
 
@@ -41,16 +42,18 @@ internal static class Commands
         return 0;
     }
 
-    public static int RunPlan(string planPath, int threads, TextWriter output, TextWriter error)
+    public static int RunPlan(string planPath, int threads, bool force, TextWriter output, TextWriter error)
     {
         var plan = PlanReader.Read(planPath);
+        if (force) plan = plan with { Overwrite = true };
         var outcome = Execute(plan, threads, $"coupling run {planPath}", error);
         PrintOutcome(outcome, output);
         return 0;
     }
 
-    public static int Simulate(string folder, int seed, int? trials, TextWriter output)
+    public static int Simulate(string folder, int seed, int? trials, bool force, TextWriter output)
     {
+        ScenarioFolder.Check(folder, force);
         var options = new ScenarioOptions { Seed = seed };
         if (trials is { } n) options = options with { TrialsPerCondition = n };
         var paths = ScenarioFiles.Write(folder, options);

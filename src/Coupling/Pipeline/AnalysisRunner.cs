@@ -29,6 +29,7 @@ public static class AnalysisRunner
         var clock = Stopwatch.StartNew();
         int workers = threads > 0 ? threads : plan.Threads;
 
+        PlanInputs.CheckOutput(plan);
         progress?.Report(new RunProgress("reading input", 0, 0));
         var input = InputLoader.Load(plan);
         var analysis = Analyse(plan, input, progress, workers, cancellationToken);

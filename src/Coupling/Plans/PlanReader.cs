@@ -18,7 +18,7 @@ public static class PlanReader
     [
         "recording", "events", "channels", "sample_rate", "epochs", "conditions", "trial", "window", "evoked",
         "bands", "decomposition", "measures", "surrogates", "seed", "correction", "output", "figures", "threads",
-        "contrasts",
+        "contrasts", "overwrite",
     ];
 
     /// <summary>Reads the plan at <paramref name="path"/>; relative paths inside it are taken from the plan's folder.</summary>
@@ -107,6 +107,7 @@ public static class PlanReader
 
         string output = ctx.Path(ctx.Required(map, root, "output", "the plan"), "output");
         bool figures = !map.TryGetValue("figures", out var fi) || ctx.Bool(fi, "figures");
+        bool overwrite = map.TryGetValue("overwrite", out var ow) && ctx.Bool(ow, "overwrite");
         int threads = map.TryGetValue("threads", out var th) ? ctx.Int(th, "threads", 0, 4096) : 0;
 
         return new Plan
@@ -130,6 +131,7 @@ public static class PlanReader
             Q = q,
             Output = output,
             Figures = figures,
+            Overwrite = overwrite,
             Threads = threads,
         };
     }
