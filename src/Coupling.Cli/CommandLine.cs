@@ -42,7 +42,7 @@ public static class CommandLine
         }
         catch (OperationCanceledException)
         {
-            error.WriteLine("coupling: stopped before the end; nothing was written.");
+            error.WriteLine("coupling: stopped before the end; no results folder was written. Run the same command again to resume from the finished units.");
             return 130;
         }
         catch (Exception e)
@@ -75,8 +75,12 @@ public static class CommandLine
         demo.SetAction(r => Commands.Demo(r.GetValue(demoOut)!.FullName, r.GetValue(demoSurrogates), r.GetValue(threads), r.GetValue(scenarioForce), output, error));
 
         var planArg = new Argument<FileInfo>("plan") { Description = "The plan file (YAML) naming recording, conditions, bands, measures, surrogates and output." };
-        var run = new Command("run", "Run the analysis a plan file describes.") { planArg, threads, force };
-        run.SetAction(r => Commands.RunPlan(r.GetValue(planArg)!.FullName, r.GetValue(threads), r.GetValue(force), output, error));
+        var restart = new Option<bool>("--restart") { Description = "Discard the finished units an interrupted earlier run kept and compute everything again (a run resumes them otherwise)." };
+        var run = new Command("run", "Run the analysis a plan file describes; an interrupted run of the same plan and inputs resumes where it stopped.")
+        {
+            planArg, threads, force, restart,
+        };
+        run.SetAction(r => Commands.RunPlan(r.GetValue(planArg)!.FullName, r.GetValue(threads), r.GetValue(force), r.GetValue(restart), output, error));
 
         var simOut = new Option<DirectoryInfo>("--output", "-o") { Description = "Folder to write the recording (EDF+), truth.json and a plan into.", DefaultValueFactory = _ => new DirectoryInfo("coupling-scenario") };
         var simSeed = new Option<int>("--seed") { Description = "Seed of the simulation.", DefaultValueFactory = _ => ScenarioFiles.DefaultSeed };

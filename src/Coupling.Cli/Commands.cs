@@ -42,11 +42,11 @@ internal static class Commands
         return 0;
     }
 
-    public static int RunPlan(string planPath, int threads, bool force, TextWriter output, TextWriter error)
+    public static int RunPlan(string planPath, int threads, bool force, bool restart, TextWriter output, TextWriter error)
     {
         var plan = PlanReader.Read(planPath);
         if (force) plan = plan with { Overwrite = true };
-        var outcome = Execute(plan, threads, $"coupling run {planPath}", error);
+        var outcome = Execute(plan, threads, $"coupling run {planPath}", error, restart);
         PrintOutcome(outcome, output);
         return 0;
     }
@@ -79,13 +79,13 @@ internal static class Commands
         return 0;
     }
 
-    private static RunOutcome Execute(Plan plan, int threads, string commandLine, TextWriter error)
+    private static RunOutcome Execute(Plan plan, int threads, string commandLine, TextWriter error, bool restart = false)
     {
         var progress = new TerminalProgress(error, ReferenceEquals(error, Console.Error) && !Console.IsErrorRedirected);
         using var stop = new CancellationTokenSource();
         ConsoleCancelEventHandler onCancel = (_, e) => { e.Cancel = true; stop.Cancel(); };
         Console.CancelKeyPress += onCancel;
-        try { return AnalysisRunner.Run(plan, progress, threads, commandLine, stop.Token); }
+        try { return AnalysisRunner.Run(plan, progress, threads, commandLine, stop.Token, restart); }
         finally
         {
             Console.CancelKeyPress -= onCancel;
@@ -103,6 +103,8 @@ internal static class Commands
             output.WriteLine($"  contrasts: {Path.Combine(outcome.OutputFolder, "contrasts.tsv")}");
         foreach (var c in outcome.Conditions)
             output.WriteLine($"  {c.Condition}: {c.Trials} trials{(c.Dropped.Count > 0 ? $", {c.Dropped.Count} dropped (listed in the manifest)" : "")}");
+        if (outcome.ResumedUnits is { Count: > 0 } resumed)
+            output.WriteLine($"  resumed: {resumed.Count} work unit(s) loaded from the interrupted earlier run ({string.Join("; ", resumed)})");
         foreach (var w in outcome.Warnings) output.WriteLine($"  warning: {w}");
         output.WriteLine($"  {outcome.Results.Sum(r => r.Significant.Count(s => s))} significant pairs in {outcome.Results.Count} tables; {outcome.Elapsed.TotalSeconds:0.0} s");
     }
