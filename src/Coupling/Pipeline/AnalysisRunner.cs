@@ -111,7 +111,7 @@ public static class AnalysisRunner
                     return SurrogateTest.Run(narrowband, plan.Measures, plan.Surrogates, Seeds.For(plan.Seed, ci, bi), trials.Condition,
                         workers > 0 ? workers : null, stageProgress, cancellationToken);
                 }
-                var tested = units?.Condition(ci, bi, $"condition {trials.Condition} / band {plan.Bands[bi].Name}", Compute) ?? Compute();
+                var tested = units?.Condition(ci, bi, UnfinishedRun.ConditionUnit(trials.Condition, plan.Bands[bi].Name), Compute) ?? Compute();
                 foreach (var m in tested)
                 {
                     var corrected = FalseDiscoveryRate.BenjaminiHochbergOfDefined(m.P);
@@ -155,7 +155,7 @@ public static class AnalysisRunner
                     return ConditionContrast.Run(a, b, plan.Measures, plan.Surrogates, Seeds.ForContrast(plan.Seed, ki, bi), contrast.Name,
                         workers > 0 ? workers : null, stageProgress, cancellationToken);
                 }
-                var tested = units?.Contrast(ki, bi, $"contrast {contrast.Name} / band {plan.Bands[bi].Name}", Compute) ?? Compute();
+                var tested = units?.Contrast(ki, bi, UnfinishedRun.ContrastUnit(contrast.Name, plan.Bands[bi].Name), Compute) ?? Compute();
                 foreach (var m in tested)
                 {
                     var corrected = FalseDiscoveryRate.BenjaminiHochbergOfDefined(m.P);

@@ -46,6 +46,7 @@ public sealed class UnfinishedRun
     private readonly RunState _state;
     private readonly List<string> _resumed = [];
     private readonly object _gate = new();
+    private bool _stateWritten;
 
     private UnfinishedRun(string folder, RunState state)
     {
@@ -56,7 +57,7 @@ public sealed class UnfinishedRun
     /// <summary>Full path of the folder holding the units.</summary>
     public string FolderPath { get; }
 
-    /// <summary>Labels of the units loaded rather than computed, in the order they were asked for.</summary>
+    /// <summary>Names of the units loaded rather than computed, in the order they were asked for.</summary>
     public IReadOnlyList<string> Resumed
     {
         get { lock (_gate) return _resumed.ToArray(); }
@@ -98,11 +99,32 @@ public sealed class UnfinishedRun
         string? change = earlier is null ? "its state file is missing or unreadable" : Difference(earlier, state);
         if (change is null) return run;
         bool anyUnit = units.Any(u => u.EndsWith(UnitExtension, StringComparison.Ordinal));
-        if (anyUnit && !restart)
+        if (anyUnit)
             throw new InputException($"{plan.Source}: output: an unfinished earlier run to '{plan.Output}' is kept in '{folder}', but {change}; " +
                 "give --restart to discard it and start over, or restore the earlier plan and inputs to resume it.");
-        run.Delete(units);
         return run;
+    }
+
+    /// <summary>The manifest's name of the unit of condition <paramref name="condition"/> in band <paramref name="band"/>.</summary>
+    public static string ConditionUnit(string condition, string band) => $"condition {condition} / band {band}";
+
+    /// <summary>The manifest's name of the unit of contrast <paramref name="contrast"/> in band <paramref name="band"/>.</summary>
+    public static string ContrastUnit(string contrast, string band) => $"contrast {contrast} / band {band}";
+
+    /// <summary>Names of the units kept in the folder for this plan and inputs (read back, not just listed), in plan order.</summary>
+    public IReadOnlyList<string> KeptUnits(Plan plan)
+    {
+        ArgumentNullException.ThrowIfNull(plan);
+        var kept = new List<string>();
+        for (int ci = 0; ci < plan.Conditions.Count; ci++)
+            for (int bi = 0; bi < plan.Bands.Count; bi++)
+                if (Load(UnitPath($"condition-{ci}-band-{bi}"), null, ReadSurrogate) is not null)
+                    kept.Add(ConditionUnit(plan.Conditions[ci].Name, plan.Bands[bi].Name));
+        for (int ki = 0; ki < plan.Contrasts.Count; ki++)
+            for (int bi = 0; bi < plan.Bands.Count; bi++)
+                if (Load(UnitPath($"contrast-{ki}-band-{bi}"), null, ReadContrast) is not null)
+                    kept.Add(ContrastUnit(plan.Contrasts[ki].Name, plan.Bands[bi].Name));
+        return kept;
     }
 
     /// <summary>
@@ -111,7 +133,7 @@ public sealed class UnfinishedRun
     /// </summary>
     /// <param name="condition">Index of the condition in the plan.</param>
     /// <param name="band">Index of the band in the plan.</param>
-    /// <param name="label">How the unit is named in the manifest (e.g. "condition go / band alpha").</param>
+    /// <param name="label">How the unit is named in the manifest (<see cref="ConditionUnit"/>).</param>
     /// <param name="compute">Computes the unit.</param>
     public IReadOnlyList<SurrogateResult> Condition(int condition, int band, string label, Func<IReadOnlyList<SurrogateResult>> compute)
     {
@@ -160,7 +182,7 @@ public sealed class UnfinishedRun
 
     private string Stamp => _state.PlanSha256 + ":" + string.Join(",", _state.Inputs.Select(i => i.Sha256));
 
-    private T[]? Load<T>(string path, string label, Func<BinaryReader, T> read)
+    private T[]? Load<T>(string path, string? label, Func<BinaryReader, T> read)
     {
         if (!File.Exists(path)) return null;
         try
@@ -173,7 +195,7 @@ public sealed class UnfinishedRun
             var items = new T[count];
             for (int i = 0; i < count; i++) items[i] = read(reader);
             if (!reader.ReadBytes(Trailer.Length).AsSpan().SequenceEqual(Trailer) || stream.Position != stream.Length) return null;
-            lock (_gate) _resumed.Add(label);
+            if (label is not null) lock (_gate) _resumed.Add(label);
             return items;
         }
         catch (Exception e) when (e is IOException or InvalidDataException or ArgumentException or InputException)
@@ -186,7 +208,11 @@ public sealed class UnfinishedRun
     {
         Directory.CreateDirectory(Path.GetDirectoryName(path)!);
         string state = Path.Combine(FolderPath, StateName);
-        if (!File.Exists(state)) AtomicFile.WriteAllText(state, JsonSerializer.Serialize(_state, StateJson) + "\n");
+        if (!_stateWritten)
+        {
+            AtomicFile.WriteAllText(state, JsonSerializer.Serialize(_state, StateJson) + "\n");
+            _stateWritten = true;
+        }
         using var stream = AtomicFile.Create(path);
         using (var writer = new BinaryWriter(stream, Encoding.UTF8, leaveOpen: true))
         {

@@ -21,6 +21,12 @@ public static class PlanReader
         "contrasts", "overwrite",
     ];
 
+    /// <summary>Fewest surrogate draws the <c>surrogates</c> key allows.</summary>
+    public const int MinSurrogates = 1;
+
+    /// <summary>Most surrogate draws the <c>surrogates</c> key allows.</summary>
+    public const int MaxSurrogates = 1_000_000;
+
     /// <summary>Reads the plan at <paramref name="path"/>; relative paths inside it are taken from the plan's folder.</summary>
     public static Plan Read(string path)
     {
@@ -92,7 +98,7 @@ public static class PlanReader
             : new DecompositionSpec("fir-hilbert", null, null, null, null);
         var measures = ReadMeasures(ctx, ctx.Required(map, root, "measures", "the plan"));
 
-        int surrogates = map.TryGetValue("surrogates", out var su) ? ctx.Int(su, "surrogates", 1, 1_000_000) : 1000;
+        int surrogates = map.TryGetValue("surrogates", out var su) ? ctx.Int(su, "surrogates", MinSurrogates, MaxSurrogates) : 1000;
         ulong seed = 0;
         if (map.TryGetValue("seed", out var se))
         {
