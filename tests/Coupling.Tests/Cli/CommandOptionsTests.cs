@@ -1,5 +1,4 @@
 using System.Text.Json.Nodes;
-using Coupling.Cli;
 using Coupling.Pipeline;
 using Coupling.Plans;
 using Coupling.Spectral;
@@ -14,13 +13,7 @@ public sealed class CommandOptionsTests : IDisposable
 
     public void Dispose() => _folder.Dispose();
 
-    private static (int Code, string Out, string Err) Cli(params string[] args)
-    {
-        var output = new StringWriter();
-        var error = new StringWriter();
-        int code = CommandLine.Run(args, output, error);
-        return (code, output.ToString(), error.ToString());
-    }
+    private static (int Code, string Out, string Err) Cli(params string[] args) => CliCapture.Run(args);
 
     [Fact]
     public void Check_prints_trials_kernel_lengths_units_and_surrogates_needed_and_writes_nothing()

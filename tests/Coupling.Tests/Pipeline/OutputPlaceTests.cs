@@ -1,7 +1,7 @@
-using Coupling.Cli;
 using Coupling.Outputs;
 using Coupling.Pipeline;
 using Coupling.Plans;
+using Coupling.Tests.Cli;
 
 namespace Coupling.Tests.Pipeline;
 
@@ -16,13 +16,7 @@ public sealed class OutputPlaceTests : IDisposable
 
     public void Dispose() => _folder.Dispose();
 
-    private static (int Code, string Out, string Err) Cli(params string[] args)
-    {
-        var output = new StringWriter();
-        var error = new StringWriter();
-        int code = CommandLine.Run(args, output, error);
-        return (code, output.ToString(), error.ToString());
-    }
+    private static (int Code, string Out, string Err) Cli(params string[] args) => CliCapture.Run(args);
 
     /// <summary>Writes the small study into <paramref name="folder"/> with <paramref name="output"/> as its output; returns the plan.</summary>
     private static string Study(string folder, string output, int surrogates = 20, string extra = "")

@@ -1,8 +1,8 @@
-using Coupling.Cli;
 using Coupling.Measures;
 using Coupling.Pipeline;
 using Coupling.Plans;
 using Coupling.Statistics;
+using Coupling.Tests.Cli;
 
 namespace Coupling.Tests.Pipeline;
 
@@ -112,13 +112,7 @@ public sealed class ResumeTests : IDisposable
         Assert.Equal(saved.Exceedances, back.Exceedances);
     }
 
-    private static (int Code, string Out, string Err) Cli(params string[] args)
-    {
-        var output = new StringWriter();
-        var error = new StringWriter();
-        int code = CommandLine.Run(args, output, error);
-        return (code, output.ToString(), error.ToString());
-    }
+    private static (int Code, string Out, string Err) Cli(params string[] args) => CliCapture.Run(args);
 
     /// <summary>Cancels the run when the band isolation of the unit numbered <c>stopAt</c> (counting from 0) starts.</summary>
     private sealed class StopAtUnit(int stopAt, CancellationTokenSource stop) : IProgress<RunProgress>
