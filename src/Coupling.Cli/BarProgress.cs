@@ -11,6 +11,7 @@ internal sealed class BarProgress : IProgress<RunProgress>
 {
     private readonly object _gate = new();
     private readonly ProgressContext _context;
+    private readonly HashSet<string> _past = new(StringComparer.Ordinal);
     private ProgressTask? _task;
     private string? _key;
 
@@ -43,6 +44,9 @@ internal sealed class BarProgress : IProgress<RunProgress>
         {
             if (key != _key)
             {
+                // Reports are posted from worker threads and may arrive late: a task already finished is not drawn again.
+                if (_past.Contains(key)) return;
+                if (_key is not null) _past.Add(_key);
                 Finish();
                 _key = key;
                 _task = _context.AddTask(Markup.Escape(key), autoStart: true, maxValue: Math.Max(1, value.Total));

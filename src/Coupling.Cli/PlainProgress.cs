@@ -16,6 +16,7 @@ internal sealed class PlainProgress(TextWriter writer, bool verbose) : IProgress
 
     private readonly object _gate = new();
     private readonly Stopwatch _clock = Stopwatch.StartNew();
+    private readonly HashSet<string> _past = new(StringComparer.Ordinal);
     private string? _stage;
     private TimeSpan _stageStart;
     private TimeSpan _lastLine;
@@ -28,6 +29,9 @@ internal sealed class PlainProgress(TextWriter writer, bool verbose) : IProgress
             var now = _clock.Elapsed;
             if (value.Stage != _stage)
             {
+                // Reports are posted from worker threads and may arrive late: a stage already left is not shown again.
+                if (_past.Contains(value.Stage)) return;
+                if (_stage is not null) _past.Add(_stage);
                 _stage = value.Stage;
                 _stageStart = now;
                 _lastLine = now;
