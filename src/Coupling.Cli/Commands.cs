@@ -9,16 +9,17 @@ namespace Coupling.Cli;
 /// <summary>The actions behind the commands: each calls the library and prints through the given writers.</summary>
 internal static class Commands
 {
-    public static int Demo(string folder, int? surrogates, int threads, TextWriter output, TextWriter error)
+    public static int Demo(string folder, int? surrogates, int threads, bool force, Verbosity verbosity, TextWriter output, TextWriter error)
     {
-        if (surrogates is < 0 or > 1_000_000)
-            throw new InputException($"--surrogates: {surrogates} is not a whole number from 0 to 1000000 (0: values without a test).");
-        output.WriteLine($"Simulating the demo scenario into {folder} ...");
+        if (surrogates is { } n && (n < PlanReader.MinSurrogates || n > PlanReader.MaxSurrogates))
+            throw new InputException($"--surrogates: {n} is not a whole number from {PlanReader.MinSurrogates} to {PlanReader.MaxSurrogates} (0: values without a test).");
+        ScenarioFolder.Check(folder, force);
+        if (verbosity != Verbosity.Quiet) output.WriteLine($"Simulating the demo scenario into {folder} ...");
         var paths = ScenarioFiles.Write(folder, new ScenarioOptions { Seed = ScenarioFiles.DefaultSeed },
             surrogates ?? ScenarioFiles.DefaultSurrogates);
-        var plan = PlanReader.Read(paths.Plan);
-        var outcome = Execute(plan, threads, $"coupling demo --output {folder}", error);
-        PrintOutcome(outcome, output);
+        var plan = PlanReader.Read(paths.Plan) with { Overwrite = force };
+        var outcome = Execute(plan, threads, $"coupling demo --output {folder}", error, restart: false, verbosity);
+        PrintOutcome(outcome, plan, verbosity, output);
         if (plan.Surrogates == 0)
         {
             output.WriteLine();
@@ -49,17 +50,27 @@ internal static class Commands
         return 0;
     }
 
-    public static int RunPlan(string planPath, int threads, TextWriter output, TextWriter error)
+    public static int RunPlan(PlanOverrides options, int threads, bool restart, Verbosity verbosity, TextWriter output, TextWriter error)
     {
-        var plan = PlanReader.Read(planPath);
-        var outcome = Execute(plan, threads, $"coupling run {planPath}", error);
-        PrintOutcome(outcome, output);
+        var plan = options.Read();
+        if (verbosity == Verbosity.Verbose && !restart) PrintPreview(PlanCheck.Preview(plan), plan, output);
+        var outcome = Execute(plan, threads, $"coupling run {options.PlanPath}", error, restart, verbosity);
+        PrintOutcome(outcome, plan, verbosity, output);
         return 0;
     }
 
-    public static int Simulate(string folder, int seed, int? trials, TextWriter output)
+    public static int Check(PlanOverrides options, TextWriter output)
+    {
+        var plan = options.Read();
+        PrintPreview(PlanCheck.Preview(plan), plan, output);
+        output.WriteLine("The plan is valid; nothing was computed or written.");
+        return 0;
+    }
+
+    public static int Simulate(string folder, int seed, int? trials, bool force, TextWriter output)
     {
         if (trials is < 2) throw new InputException($"--trials: {trials} is too few; expected at least 2 trials per condition.");
+        ScenarioFolder.Check(folder, force);
         var options = new ScenarioOptions { Seed = seed };
         if (trials is { } n) options = options with { TrialsPerCondition = n };
         var paths = ScenarioFiles.Write(folder, options);
@@ -98,28 +109,60 @@ internal static class Commands
         return 0;
     }
 
-    private static RunOutcome Execute(Plan plan, int threads, string commandLine, TextWriter error)
+    private static RunOutcome Execute(Plan plan, int threads, string commandLine, TextWriter error, bool restart, Verbosity verbosity)
     {
-        var progress = new TerminalProgress(error, ReferenceEquals(error, Console.Error) && !Console.IsErrorRedirected);
         using var stop = new CancellationTokenSource();
         ConsoleCancelEventHandler onCancel = (_, e) => { e.Cancel = true; stop.Cancel(); };
         Console.CancelKeyPress += onCancel;
-        void Warn(string warning)
+        try
         {
-            progress.End();
-            error.WriteLine($"coupling: warning: {warning}");
+            // Warnings arrive once the input is checked, before the long computation; --quiet leaves them for the summary.
+            if (verbosity == Verbosity.Quiet)
+                return AnalysisRunner.Run(plan, null, threads, commandLine, stop.Token, restart);
+            void Warn(string warning) => error.WriteLine($"coupling: warning: {warning}");
+            bool terminal = ReferenceEquals(error, Console.Error) && !Console.IsErrorRedirected;
+            return terminal
+                ? BarProgress.Show(error, bars => AnalysisRunner.Run(plan, bars, threads, commandLine, stop.Token, restart,
+                    w => bars.WriteLine($"coupling: warning: {w}")))
+                : AnalysisRunner.Run(plan, new PlainProgress(error, verbosity == Verbosity.Verbose), threads, commandLine, stop.Token, restart, Warn);
         }
-        try { return AnalysisRunner.Run(plan, progress, threads, commandLine, stop.Token, Warn); }
         finally
         {
             Console.CancelKeyPress -= onCancel;
-            progress.End();
         }
     }
 
-    private static void PrintOutcome(RunOutcome outcome, TextWriter output)
+    private static void PrintPreview(PlanPreview p, Plan plan, TextWriter output)
+    {
+        var inv = CultureInfo.InvariantCulture;
+        output.WriteLine($"Plan: {p.Plan}");
+        output.WriteLine(string.Create(inv, $"Recording: {p.Recording}, {p.SampleRate:G6} Hz, {p.Channels.Count} channels ({string.Join(", ", p.Channels)}), {p.Pairs} pairs"));
+        output.WriteLine("Trials per condition:");
+        foreach (var c in p.Conditions) output.WriteLine($"  {c.Condition}: {c.Trials}");
+        output.WriteLine("Bands:");
+        foreach (var b in p.Bands)
+        {
+            string kernel = b.Method == "morlet" ? "wavelet support" : "filter";
+            output.WriteLine(string.Create(inv,
+                $"  {b.Band}: {b.Method}, {kernel} {b.KernelSamples} samples ({b.KernelSeconds:G4} s), padding {b.PadSamples} samples per trial end, time step {b.TimeStep} samples"));
+        }
+        output.WriteLine($"Work units: {p.WorkUnits.Count} ({plan.Conditions.Count} condition(s) x {plan.Bands.Count} band(s)" +
+            (plan.Contrasts.Count > 0 ? $", {plan.Contrasts.Count} contrast(s) x {plan.Bands.Count} band(s)" : "") + $"), {p.Surrogates} surrogates each");
+        foreach (var u in p.WorkUnits) output.WriteLine($"  {u}{(p.KeptUnits.Contains(u) ? "   (kept by an interrupted run: loaded, not computed)" : "")}");
+        string verdict = p.Surrogates < p.SurrogatesForOneDiscovery ? " (too few for a lone coupled pair to pass the correction)." : ".";
+        output.WriteLine(string.Create(inv,
+            $"Surrogates needed for a single discovery among {p.Pairs} pairs at q = {plan.Q:G3}: at least {p.SurrogatesForOneDiscovery}; the plan has {p.Surrogates}{verdict}"));
+        output.WriteLine($"Output: {p.Output}{(Directory.Exists(p.Output) ? " (earlier results, to be replaced)" : "")}");
+    }
+
+    private static void PrintOutcome(RunOutcome outcome, Plan plan, Verbosity verbosity, TextWriter output)
     {
         output.WriteLine($"Results: {outcome.OutputFolder}");
+        if (verbosity == Verbosity.Quiet)
+        {
+            foreach (var w in outcome.Warnings) output.WriteLine($"  warning: {w}");
+            return;
+        }
         output.WriteLine($"  report:   {Path.Combine(outcome.OutputFolder, "report.md")}");
         output.WriteLine($"  edges:    {Path.Combine(outcome.OutputFolder, "edges.tsv")}");
         if (Directory.Exists(Path.Combine(outcome.OutputFolder, "figures")))
@@ -128,6 +171,8 @@ internal static class Commands
             output.WriteLine($"  contrasts: {Path.Combine(outcome.OutputFolder, "contrasts.tsv")}");
         foreach (var c in outcome.Conditions)
             output.WriteLine($"  {c.Condition}: {c.Trials} trials{(c.Dropped.Count > 0 ? $", {c.Dropped.Count} dropped (listed in the manifest)" : "")}");
+        if (outcome.ResumedUnits is { Count: > 0 } resumed)
+            output.WriteLine($"  resumed: {resumed.Count} work unit(s) loaded from the interrupted earlier run ({string.Join("; ", resumed)})");
         if (outcome.Warnings.Count > 0) output.WriteLine($"  {outcome.Warnings.Count} warning(s), shown before the computation and in the report");
         output.WriteLine($"  {outcome.Results.Sum(r => r.Significant.Count(s => s))} significant pairs in {outcome.Results.Count} tables; {outcome.Elapsed.TotalSeconds:0.0} s");
     }

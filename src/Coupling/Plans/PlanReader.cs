@@ -18,8 +18,14 @@ public static class PlanReader
     [
         "recording", "events", "channels", "sample_rate", "epochs", "conditions", "trial", "window", "evoked",
         "bands", "decomposition", "measures", "surrogates", "seed", "correction", "output", "figures", "threads",
-        "contrasts", "truncated_recording", "unusable_data",
+        "contrasts", "overwrite", "truncated_recording", "unusable_data",
     ];
+
+    /// <summary>Fewest surrogate draws the <c>surrogates</c> key allows (0: values without a test).</summary>
+    public const int MinSurrogates = 0;
+
+    /// <summary>Most surrogate draws the <c>surrogates</c> key allows.</summary>
+    public const int MaxSurrogates = 1_000_000;
 
     /// <summary>Reads the plan at <paramref name="path"/>; relative paths inside it are taken from the plan's folder.</summary>
     public static Plan Read(string path)
@@ -95,7 +101,7 @@ public static class PlanReader
             : new DecompositionSpec("fir-hilbert", null, null, null, null);
         var measures = ReadMeasures(ctx, ctx.Required(map, root, "measures", "the plan"));
 
-        int surrogates = map.TryGetValue("surrogates", out var su) ? ctx.Int(su, "surrogates", 0, 1_000_000) : 1000;
+        int surrogates = map.TryGetValue("surrogates", out var su) ? ctx.Int(su, "surrogates", MinSurrogates, MaxSurrogates) : 1000;
         ulong seed = 0;
         if (map.TryGetValue("seed", out var se))
         {
@@ -110,6 +116,7 @@ public static class PlanReader
 
         string output = ctx.Path(ctx.Required(map, root, "output", "the plan"), "output");
         bool figures = !map.TryGetValue("figures", out var fi) || ctx.Bool(fi, "figures");
+        bool overwrite = map.TryGetValue("overwrite", out var ow) && ctx.Bool(ow, "overwrite");
         int threads = map.TryGetValue("threads", out var th) ? ctx.Int(th, "threads", 0, 4096) : 0;
         bool keepComplete = map.TryGetValue("truncated_recording", out var tr)
             && ctx.Choice(tr, "truncated_recording", ["refuse", "keep-complete-records"]) == "keep-complete-records";
@@ -135,6 +142,7 @@ public static class PlanReader
             Q = q,
             Output = output,
             Figures = figures,
+            Overwrite = overwrite,
             Threads = threads,
             KeepCompleteRecords = keepComplete,
             UnusableData = map.TryGetValue("unusable_data", out var ud) ? ctx.Choice(ud, "unusable_data", Pipeline.UnusableData.Policies) : Pipeline.UnusableData.Refuse,

@@ -94,7 +94,7 @@ public sealed class InputAnswersTests : IDisposable
         Assert.Equal("warning: " + Assert.Single(outcome.Warnings), events[warning]);
 
         // and the command line prints it on stderr before the first stage of the computation.
-        var (code, output, err) = Cli("run", _folder["plan.yaml"]);
+        var (code, output, err) = Cli("run", _folder["plan.yaml"], "--force");
         Assert.Equal(0, code);
         int printed = err.IndexOf("coupling: warning: With 10 surrogates", StringComparison.Ordinal);
         int computing = err.IndexOf("band isolation", StringComparison.Ordinal);
@@ -172,7 +172,7 @@ public sealed class InputAnswersTests : IDisposable
         Assert.DoesNotContain("figures", output);
         Assert.False(Directory.Exists(_folder["results/figures"]));
         File.WriteAllText(plan, File.ReadAllText(plan).Replace("figures: false", "figures: true"));
-        (code, output, _) = Cli("run", plan);
+        (code, output, _) = Cli("run", plan, "--force");
         Assert.Equal(0, code);
         Assert.Contains($"figures:  {_folder["results/figures"]}", output);
     }
