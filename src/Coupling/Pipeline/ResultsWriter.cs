@@ -13,7 +13,7 @@ namespace Coupling.Pipeline;
 /// <remarks>
 /// Everything is written into a temporary sibling folder that is renamed into place only when all of it is written
 /// (<see cref="OutputFolder"/>): a stopped or failed run leaves no partial results and keeps an older folder.
-/// Layout (docs/outputs.md): report.md, manifest.json, edges.tsv, nodes.tsv, matrices/, graphs/, figures/, and with
+/// Layout (docs/outputs.md): report.md, manifest.json, edges.tsv, nodes.tsv, graphs.tsv, matrices/, graphs/, figures/, and with
 /// contrasts in the plan contrasts.tsv, matrices/contrasts/ and figures/contrasts/.
 /// </remarks>
 public static class ResultsWriter
@@ -61,6 +61,8 @@ public static class ResultsWriter
         progress?.Report(new RunProgress("writing results", total, total));
         NodeTableWriter.Write(graphs, folder.PathOf("nodes.tsv"));
         written.Add("nodes.tsv");
+        GraphTableWriter.Write(graphs, folder.PathOf("graphs.tsv"));
+        written.Add("graphs.tsv");
 
         if (analysis.Contrasts.Count > 0)
         {
