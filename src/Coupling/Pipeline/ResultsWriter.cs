@@ -52,10 +52,12 @@ public static class ResultsWriter
             written.Add($"graphs/{stem}.graphml");
             if (plan.Figures)
             {
-                MatrixFigure.Save(r, folder.PathOf($"figures/{stem}_matrix.png"));
-                NetworkFigure.Save(r, folder.PathOf($"figures/{stem}_network.png"));
-                written.Add($"figures/{stem}_matrix.png");
-                written.Add($"figures/{stem}_network.png");
+                foreach (var (kind, save) in Figures(r, null))
+                {
+                    string[] files = [$"figures/{stem}_{kind}.png", $"figures/{stem}_{kind}.svg"];
+                    save(files.Select(folder.PathOf).ToArray());
+                    written.AddRange(files);
+                }
             }
         }
         progress?.Report(new RunProgress("writing results", total, total));
@@ -78,10 +80,12 @@ public static class ResultsWriter
                 {
                     string stem = OutputNames.Stem(difference);
                     string label = $"{difference.Measure} difference";
-                    MatrixFigure.Save(difference, folder.PathOf($"figures/contrasts/{stem}_matrix.png"), valueLabel: label);
-                    NetworkFigure.Save(difference, folder.PathOf($"figures/contrasts/{stem}_network.png"), valueLabel: label);
-                    written.Add($"figures/contrasts/{stem}_matrix.png");
-                    written.Add($"figures/contrasts/{stem}_network.png");
+                    foreach (var (kind, save) in Figures(difference, label))
+                    {
+                        string[] files = [$"figures/contrasts/{stem}_{kind}.png", $"figures/contrasts/{stem}_{kind}.svg"];
+                        save(files.Select(folder.PathOf).ToArray());
+                        written.AddRange(files);
+                    }
                 }
             }
         }
@@ -117,6 +121,13 @@ public static class ResultsWriter
         folder.Commit();
         return folder.TargetPath;
     }
+
+    /// <summary>The figures of a result: name part and a writer taking the paths (PNG and SVG) to write.</summary>
+    private static (string Kind, Action<string[]> Save)[] Figures(PairResult r, string? label) =>
+    [
+        ("matrix", paths => MatrixFigure.Save(r, paths, valueLabel: label)),
+        ("network", paths => NetworkFigure.Save(r, paths, valueLabel: label)),
+    ];
 
     private static IEnumerable<string> InputFiles(Plan plan, LoadedInput input)
     {
