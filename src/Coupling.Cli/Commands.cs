@@ -127,7 +127,9 @@ internal static class Commands
         string verdict = p.Surrogates < p.SurrogatesForOneDiscovery ? " (too few for a lone coupled pair to pass the correction)." : ".";
         output.WriteLine(string.Create(inv,
             $"Surrogates needed for a single discovery among {p.Pairs} pairs at q = {plan.Q:G3}: at least {p.SurrogatesForOneDiscovery}; the plan has {p.Surrogates}{verdict}"));
-        output.WriteLine($"Output: {p.Output}{(Directory.Exists(p.Output) ? " (earlier results, to be replaced)" : "")}");
+        string state = !Directory.Exists(p.Output) ? " (new)"
+            : Directory.EnumerateFileSystemEntries(p.Output).Any() ? " (earlier results, to be replaced)" : " (an empty folder, to be filled)";
+        output.WriteLine($"Output: {p.Output}{state}");
     }
 
     private static void PrintOutcome(RunOutcome outcome, Plan plan, Verbosity verbosity, TextWriter output)
