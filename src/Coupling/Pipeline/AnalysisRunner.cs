@@ -30,6 +30,7 @@ public static class AnalysisRunner
         var clock = Stopwatch.StartNew();
         int workers = threads > 0 ? threads : plan.Threads;
 
+        Outputs.OutputFolder.RemoveLeftovers(plan.Output);
         PlanInputs.CheckOutput(plan);
         var units = UnfinishedRun.Open(plan, restart);
         progress?.Report(new RunProgress("reading input", 0, 0));

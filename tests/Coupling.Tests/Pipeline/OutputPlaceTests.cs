@@ -138,6 +138,21 @@ public sealed class OutputPlaceTests : IDisposable
     }
 
     [Fact]
+    public void Earlier_results_left_aside_by_a_killed_run_are_put_back_before_anything_is_computed()
+    {
+        string plan = Study(_folder.Path, "results");
+        Assert.Equal(0, Cli("run", plan).Code);
+        // A run killed between setting the earlier results aside and renaming its own into place.
+        Directory.Move(_folder["results"], _folder[".results.old-0123456789ab"]);
+        var stages = new List<string>();
+        var e = Assert.Throws<InputException>(() => AnalysisRunner.Run(PlanReader.Read(plan), new SynchronousProgress(stages)));
+        Assert.Contains("give --force", e.Message);
+        Assert.Empty(stages);
+        Assert.Equal(["plan.yaml", "rec.csv", "rec_events.tsv", "results"], _folder.Entries());
+        Assert.True(File.Exists(_folder["results/manifest.json"]));
+    }
+
+    [Fact]
     public void A_results_folder_whose_manifest_lacks_the_marker_is_never_replaced()
     {
         string plan = Study(_folder.Path, "results");
