@@ -80,6 +80,22 @@ public sealed class OutputPlaceTests : IDisposable
     }
 
     [Fact]
+    public void A_folder_holding_only_the_plan_or_only_the_events_file_is_refused()
+    {
+        Directory.CreateDirectory(_folder["data"]);
+        Directory.CreateDirectory(_folder["plans"]);
+        Directory.CreateDirectory(_folder["events"]);
+        SmallStudy.WriteRecording(_folder["data"]);
+        File.Move(_folder["data/rec_events.tsv"], _folder["events/go.tsv"]);
+        string plan = _folder["plans/plan.yaml"];
+        string text = SmallStudy.PlanText(20).Replace("recording: rec.csv", "recording: ../data/rec.csv").Replace("events: rec_events.tsv", "events: ../events/go.tsv");
+        File.WriteAllText(plan, text.Replace("output: results", "output: ."));
+        Refused(plan, _folder["plans"], ["--force"], "holds the input", "plan.yaml");
+        File.WriteAllText(plan, text.Replace("output: results", "output: ../events"));
+        Refused(plan, _folder["events"], ["--force"], "holds the input", "go.tsv");
+    }
+
+    [Fact]
     public void A_link_to_the_recording_folder_is_recognised_as_that_folder()
     {
         string plan = Study(_folder["data"], "../link");
