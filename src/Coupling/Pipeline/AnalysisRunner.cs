@@ -32,6 +32,7 @@ public static class AnalysisRunner
         var clock = Stopwatch.StartNew();
         int workers = threads > 0 ? threads : plan.Threads;
 
+        Outputs.OutputFolder.RemoveLeftovers(plan.Output);
         PlanInputs.CheckOutput(plan);
         var units = UnfinishedRun.Open(plan, restart);
         progress?.Report(new RunProgress("reading input", 0, 0));
@@ -69,12 +70,7 @@ public static class AnalysisRunner
         var trialCounts = new Dictionary<string, int>(StringComparer.Ordinal);
         foreach (var condition in plan.Conditions)
         {
-            foreach (var label in condition.EventLabels)
-                if (!input.EventLabels.Contains(label))
-                {
-                    var known = input.EventLabels.Distinct().Order(StringComparer.Ordinal).ToArray();
-                    throw new InputException($"{plan.Where($"conditions.{condition.Name}")}: event label '{label}' does not occur in {input.Source}{Plans.Spelling.Hint(label, known)}; labels there: {string.Join(", ", known)}.");
-                }
+            TrialChecks.CheckLabels(plan, condition, input);
             int count = InPlan(plan, "trial", () => input.TrialCount(condition, plan.Trial));
             TrialChecks.CheckCount(plan, condition, input.EventLabels.Count(condition.EventLabels.Contains), count, input.UnusableTrialCount(condition));
             if (plan.Surrogates > 0)
