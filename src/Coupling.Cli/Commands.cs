@@ -20,6 +20,12 @@ internal static class Commands
         var plan = PlanReader.Read(paths.Plan) with { Overwrite = force };
         var outcome = Execute(plan, threads, $"coupling demo --output {folder}", error, restart: false, verbosity);
         PrintOutcome(outcome, plan, verbosity, output);
+        if (plan.Surrogates == 0)
+        {
+            output.WriteLine();
+            output.WriteLine($"Values only (--surrogates 0): nothing was tested, so nothing is compared with the ground truth ({paths.Truth}).");
+            return 0;
+        }
 
         var truth = TruthFile.Read(paths.Truth);
         var lines = TruthCheck.Compare(truth, outcome.Results).Concat(TruthCheck.CompareContrasts(truth, outcome.Contrasts)).ToArray();

@@ -348,7 +348,7 @@ public static class PlanReader
         {
             string v = Scalar(node, key);
             return allowed.Contains(v) ? v
-                : throw Error(node, key, $"'{v}' is not allowed{Spelling.Hint(v, allowed)}; use {string.Join(" or ", allowed.Select(a => $"'{a}'"))}");
+                : throw Error(node, key, $"'{v}' is not allowed{Spelling.Hint(v, allowed)}; use {string.Join(", ", allowed.SkipLast(1).Select(a => $"'{a}'"))} or '{allowed[^1]}'");
         }
 
         public bool Bool(YamlNode node, string key) => Scalar(node, key) switch
