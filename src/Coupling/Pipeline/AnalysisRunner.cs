@@ -72,17 +72,21 @@ public static class AnalysisRunner
 
         var warnings = new List<string>();
         int pairs = Measures.PairIndex.Count(input.Channels.Count);
-        int needed = (int)Math.Ceiling(pairs / plan.Q) - 1;
-        if (plan.Surrogates < needed)
+        var floor = SurrogateFloor.Of(plan.Correction, plan.Q, pairs);
+        int needed = floor.Needed;
+        if (floor.Applies && plan.Surrogates < needed)
         {
-            int k = (int)Math.Ceiling(pairs / (plan.Q * (plan.Surrogates + 1)));
+            int k = (int)Math.Ceiling(floor.Multiplier * pairs / (plan.Q * (plan.Surrogates + 1)));
             string reach = k > pairs
                 ? $"no pair can pass the correction whatever the data (that would take {k} pairs at that p, and only {pairs} are tested)"
                 : $"a pair can pass the correction only if at least {k} pairs reach that p";
             warnings.Add(string.Create(CultureInfo.InvariantCulture,
                 $"With {plan.Surrogates} surrogates the smallest attainable p is 1/{plan.Surrogates + 1}; across {pairs} pairs at q = {plan.Q:G3} {reach}. " +
-                $"Use at least {needed} surrogates for a single coupled pair to be detectable."));
+                $"Use at least {needed} surrogates for a single coupled pair to be detectable, or a family-wise correction (max-statistic) or the Pareto tail."));
         }
+        else if (!floor.Applies && !plan.Correction.ParetoTail && plan.Surrogates < needed)
+            warnings.Add(string.Create(CultureInfo.InvariantCulture,
+                $"With {plan.Surrogates} surrogates the smallest attainable p is 1/{plan.Surrogates + 1}, above alpha = {plan.Q:G3}: no pair can be significant. Use at least {needed} surrogates."));
 
         var results = new List<PairResult>();
         var summaries = new List<ConditionSummary>();
@@ -98,15 +102,11 @@ public static class AnalysisRunner
                 var narrowband = NarrowbandExtractor.Extract(trials, decompositions[bi], plan.Window, steps[bi], workers);
                 var stageProgress = progress is null ? null
                     : new Progress<int>(done => progress.Report(new RunProgress($"{stage}: surrogates", done, plan.Surrogates)));
-                var tested = SurrogateTest.Run(narrowband, plan.Measures, plan.Surrogates, Seeds.For(plan.Seed, ci, bi), trials.Condition,
-                    workers > 0 ? workers : null, stageProgress, cancellationToken);
-                foreach (var m in tested)
-                {
-                    var corrected = FalseDiscoveryRate.BenjaminiHochbergOfDefined(m.P);
-                    var significant = corrected.Select(q => q <= plan.Q).ToArray();
+                var tested = FamilyCorrection.TestCondition(narrowband, plan.Measures, plan.Surrogates, Seeds.For(plan.Seed, ci, bi),
+                    trials.Condition, plan.Correction, plan.Q, workers > 0 ? workers : null, stageProgress, cancellationToken);
+                foreach (var (m, o) in tested)
                     results.Add(new PairResult(trials.Condition, plan.Bands[bi].Name, MeasureCatalog.Key(m.Measure), trials.Channels,
-                        m.Observed, m.Z, m.P, corrected, significant, input.Channels.Select(c => c.Position).ToArray()));
-                }
+                        m.Observed, m.Z, o.P, o.PCorrected, o.Significant, input.Channels.Select(c => c.Position).ToArray(), o));
             }
         }
         var contrasts = Contrast(plan, input, decompositions, steps, pad, progress, workers, cancellationToken);
@@ -138,15 +138,12 @@ public static class AnalysisRunner
                 var b = NarrowbandExtractor.Extract(trialsB, decompositions[bi], plan.Window, steps[bi], workers);
                 var stageProgress = progress is null ? null
                     : new Progress<int>(done => progress.Report(new RunProgress($"{stage}: label permutations", done, plan.Surrogates)));
-                var tested = ConditionContrast.Run(a, b, plan.Measures, plan.Surrogates, Seeds.ForContrast(plan.Seed, ki, bi), contrast.Name,
-                    workers > 0 ? workers : null, stageProgress, cancellationToken);
-                foreach (var m in tested)
-                {
-                    var corrected = FalseDiscoveryRate.BenjaminiHochbergOfDefined(m.P);
-                    var significant = corrected.Select(q => q <= plan.Q).ToArray();
+                var tested = FamilyCorrection.TestContrast(a, b, plan.Measures, plan.Surrogates, Seeds.ForContrast(plan.Seed, ki, bi),
+                    contrast.Name, plan.Correction, plan.Q, workers > 0 ? workers : null, stageProgress, cancellationToken);
+                foreach (var (m, o) in tested)
                     results.Add(new ContrastPairResult(contrast.Name, contrast.ConditionA, contrast.ConditionB, plan.Bands[bi].Name,
-                        MeasureCatalog.Key(m.Measure), trialsA.Channels, m.ValueA, m.ValueB, m.Difference, m.Z, m.P, corrected, significant, positions));
-                }
+                        MeasureCatalog.Key(m.Measure), trialsA.Channels, m.ValueA, m.ValueB, m.Difference, m.Z, o.P, o.PCorrected,
+                        o.Significant, positions, o));
             }
         }
         return results;

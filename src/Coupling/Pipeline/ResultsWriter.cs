@@ -108,6 +108,7 @@ public static class ResultsWriter
                 ["threads"] = context.Threads,
                 ["analysis_seconds"] = context.Elapsed.TotalSeconds,
                 ["input_notes"] = new JsonArray(input.Notes.Select(n => (JsonNode)JsonValue.Create(n)!).ToArray()),
+                ["correction"] = CorrectionText.Manifest(plan.Correction, plan.Q),
                 ["warnings"] = new JsonArray(analysis.Warnings.Select(n => (JsonNode)JsonValue.Create(n)!).ToArray()),
             },
         };

@@ -46,7 +46,7 @@ public static class RunReport
         sb.AppendLine($"- Band isolation: {plan.Decomposition.Method}; every trial padded by {analysis.PadSamples} samples at each end");
         sb.AppendLine($"- Measures: {string.Join(", ", plan.Measures.Select(MeasureCatalog.Key))}");
         sb.AppendLine($"- Significance: {plan.Surrogates} trial-shuffle surrogates per condition and band (seed {plan.Seed}); p = (b+1)/(M+1); " +
-                      $"Benjamini-Hochberg false discovery rate at q = {plan.Q.ToString("G4", inv)} across the pairs of each condition x band x measure");
+                      $"{CorrectionText.Describe(plan.Correction, plan.Q)}; family: {CorrectionText.ConditionFamily}");
         sb.AppendLine();
         sb.AppendLine("| band | Hz | decomposition (as used) | time step (samples) |");
         sb.AppendLine("|---|---|---|---|");
@@ -80,7 +80,7 @@ public static class RunReport
             sb.AppendLine("## Condition contrasts");
             sb.AppendLine();
             sb.AppendLine($"Differences A − B tested by {plan.Surrogates} random reassignments of the condition labels of the pooled trials " +
-                          $"(group sizes kept; two-sided p = (b+1)/(M+1); Benjamini-Hochberg at q = {plan.Q.ToString("G4", inv)} across the pairs of each contrast x band x measure). " +
+                          $"(group sizes kept; two-sided p = (b+1)/(M+1); {CorrectionText.Describe(plan.Correction, plan.Q)}; family: {CorrectionText.ContrastFamily}). " +
                           "A pair significant in one condition and not in the other is NOT evidence that the two differ; this test is.");
             sb.AppendLine();
             sb.AppendLine("| contrast | band | measure | significant | largest significant differences (A, B, A − B, z) |");
@@ -100,6 +100,7 @@ public static class RunReport
             sb.AppendLine();
         }
 
+        NetworkComponentsReport.Append(sb, analysis);
         sb.AppendLine("## Reading these results");
         sb.AppendLine();
         sb.AppendLine("- plv, ppc and coherence also respond to volume conduction (one source seen by two channels at zero lag); " +

@@ -1,5 +1,6 @@
 using Coupling.Measures;
 using Coupling.Spectral;
+using Coupling.Statistics;
 
 namespace Coupling.Plans;
 
@@ -57,8 +58,12 @@ public sealed record Plan
     /// <summary>Seed of every random choice in the run.</summary>
     public ulong Seed { get; init; }
 
-    /// <summary>False discovery rate level for the Benjamini-Hochberg correction.</summary>
+    /// <summary>Level of the correction across pairs: the false discovery rate q, or the family-wise error rate alpha
+    /// (see <see cref="Correction"/>); for no correction, the per-pair level.</summary>
     public double Q { get; init; } = 0.05;
+
+    /// <summary>The correction across pairs and its options.</summary>
+    public CorrectionSpec Correction { get; init; } = CorrectionSpec.Default;
 
     /// <summary>Results folder (created whole when the run succeeds).</summary>
     public required string Output { get; init; }
