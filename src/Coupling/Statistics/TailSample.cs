@@ -24,10 +24,9 @@ internal sealed class TailSample : IDrawObserver
         _countLower = new int[cells];
     }
 
-    /// <summary>Values to keep per tail for <paramref name="draws"/> draws: min(250 + 1, M/4), so the fit never reaches the
-    /// middle of the distribution (common practice: Knijnenburg et al. 2009 start at 250 exceedances; the tail stays
-    /// within the top quarter).</summary>
-    public static int KeptFor(int draws) => Math.Max(1, Math.Min(ParetoTail.MaximumFitted + 1, draws / 4));
+    /// <summary>Values to keep per tail for <paramref name="draws"/> draws: the N_exc + 1 that <see cref="ParetoTail.UpperP"/>
+    /// can use, min(250, M/20) + 1.</summary>
+    public static int KeptFor(int draws) => Math.Min(ParetoTail.MaximumFitted, draws / ParetoTail.TailFraction) + 1;
 
     public void Observe(int draw, ReadOnlySpan<double> values)
     {
