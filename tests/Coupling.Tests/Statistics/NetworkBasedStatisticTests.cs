@@ -43,7 +43,7 @@ public class NetworkBasedStatisticTests
     {
         // Contrast of two conditions from one distribution, 6 and 18 trials: any component declared significant is a
         // family-wise error; its rate must lie within the 99 % binomial acceptance region of Binomial(n, alpha) (exact).
-        const int experiments = 160, draws = 39;
+        const int experiments = 120, draws = 19;
         const double alpha = 0.1;
         var random = new Random(21);
         var (lo, hi) = BinomialInterval.Of(experiments, alpha);

@@ -85,15 +85,15 @@ public class ParetoTailTests
     [Fact]
     public void The_tail_p_agrees_with_a_long_permutation_run()
     {
-        // The tail approximation from M = 2000 draws against the counts of a run 250 times longer (Knijnenburg et al. 2009,
+        // The tail approximation from M = 2000 draws against the counts of a run 100 times longer (Knijnenburg et al. 2009,
         // Bioinformatics 25:i161, figure 3 makes the same comparison). The observed values are the long run's upper
-        // quantiles at p = 1e-3 and 2e-4 (500 and 100 exceedances: counting error 4-10 %), where 2000 draws give fewer
+        // quantiles at p = 1e-3 and 2e-4 (200 and 40 exceedances: counting error 7-16 %), where 2000 draws give fewer
         // than 10 exceedances. The tail is fitted conservatively (a negative shape is replaced by the exponential tail,
         // see ParetoTail), so over 12 independent short runs the median must lie between 0.67 and 4 times the long-run
         // p and every run between 0.4 and 12 times (bounds from 60 runs of the same algorithm in numpy: 5-95 % range
         // 1.0-2.3 at 1e-3 and 1.4-4.5 at 2e-4, widened for 12 runs).
         var random = new Random(17);
-        const int longDraws = 500_000, shortDraws = 2000;
+        const int longDraws = 200_000, shortDraws = 2000;
         var longRun = new double[longDraws];
         for (int i = 0; i < longDraws; i++) longRun[i] = NullPlv(random);
         Array.Sort(longRun);
