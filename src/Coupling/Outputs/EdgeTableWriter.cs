@@ -21,7 +21,7 @@ public static class EdgeTableWriter
     /// <summary>The header row, in order.</summary>
     public static IReadOnlyList<string> Columns { get; } =
         ["condition", "band", "measure", "channel_a", "channel_b", "value", "z", "p", "p_corrected", "significant",
-         .. CorrectionColumns.Names];
+         .. CorrectionColumns.Names, "ci_low", "ci_high", "value_matched", "unbiased_in_trials"];
 
     /// <summary>Writes all pairs of <paramref name="results"/> to <paramref name="path"/>.</summary>
     /// <returns>The number of data rows written.</returns>
@@ -38,6 +38,8 @@ public static class EdgeTableWriter
         {
             PairResultShape.Check(r);
             int c = r.Channels.Count, family = CorrectionColumns.FamilySize(r.P);
+            string unbiased = MeasureCatalog.All.Where(m => MeasureCatalog.Key(m) == r.Measure)
+                .Select(m => Statistics.TrialResampling.IsUnbiasedInTrials(m) ? "true" : "false").FirstOrDefault() ?? "NA";
             for (int k = 0; k < r.Value.Length; k++)
             {
                 var (a, b) = PairIndex.Channels(k, c);
@@ -47,6 +49,10 @@ public static class EdgeTableWriter
                     TableText.Number(r.Z[k]), TableText.Number(r.P[k]), TableText.Number(r.PCorrected[k]),
                     r.Significant[k] ? "true" : "false",
                     .. CorrectionColumns.Cells(r.Correction, family, k),
+                    r.IntervalLow is null ? "NA" : TableText.Number(r.IntervalLow[k]),
+                    r.IntervalHigh is null ? "NA" : TableText.Number(r.IntervalHigh[k]),
+                    r.ValueMatched is null ? "NA" : TableText.Number(r.ValueMatched[k]),
+                    unbiased,
                 ];
             }
         }

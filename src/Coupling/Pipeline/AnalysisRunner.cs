@@ -104,9 +104,18 @@ public static class AnalysisRunner
                     : new Progress<int>(done => progress.Report(new RunProgress($"{stage}: surrogates", done, plan.Surrogates)));
                 var tested = FamilyCorrection.TestCondition(narrowband, plan.Measures, plan.Surrogates, Seeds.For(plan.Seed, ci, bi),
                     trials.Condition, plan.Correction, plan.Q, workers > 0 ? workers : null, stageProgress, cancellationToken);
-                foreach (var (m, o) in tested)
+                var (low, high) = plan.JackknifeIntervals ? TrialResampling.Jackknife(narrowband, plan.Measures) : (null, null);
+                var matched = plan.MatchTrials > 0
+                    ? TrialResampling.Matched(narrowband, plan.Measures, trialCounts.Values.Min(), plan.MatchTrials, Seeds.ForMatching(plan.Seed, ci, bi))
+                    : null;
+                double[]? Slice(double[]? all, int k) => all?.AsSpan(k * pairs, pairs).ToArray();
+                for (int k = 0; k < tested.Count; k++)
+                {
+                    var (m, o) = tested[k];
                     results.Add(new PairResult(trials.Condition, plan.Bands[bi].Name, MeasureCatalog.Key(m.Measure), trials.Channels,
-                        m.Observed, m.Z, o.P, o.PCorrected, o.Significant, input.Channels.Select(c => c.Position).ToArray(), o));
+                        m.Observed, m.Z, o.P, o.PCorrected, o.Significant, input.Channels.Select(c => c.Position).ToArray(), o,
+                        Slice(low, k), Slice(high, k), Slice(matched, k)));
+                }
             }
         }
         var contrasts = Contrast(plan, input, decompositions, steps, pad, progress, workers, cancellationToken);

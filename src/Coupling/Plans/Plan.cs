@@ -62,6 +62,12 @@ public sealed record Plan
     /// (see <see cref="Correction"/>); for no correction, the per-pair level.</summary>
     public double Q { get; init; } = 0.05;
 
+    /// <summary>Whether leave-one-trial-out jackknife 95 % intervals of the values are computed (plan key <c>intervals: jackknife</c>).</summary>
+    public bool JackknifeIntervals { get; init; }
+
+    /// <summary>Random subsets per condition for values matched to the smallest condition's trial count; 0 for no matching.</summary>
+    public int MatchTrials { get; init; }
+
     /// <summary>The correction across pairs and its options.</summary>
     public CorrectionSpec Correction { get; init; } = CorrectionSpec.Default;
 

@@ -19,7 +19,7 @@ public static class PlanReader
     [
         "recording", "events", "channels", "sample_rate", "epochs", "conditions", "trial", "window", "evoked",
         "bands", "decomposition", "measures", "surrogates", "seed", "correction", "output", "figures", "threads",
-        "contrasts",
+        "contrasts", "intervals", "match_trials",
     ];
 
     /// <summary>Reads the plan at <paramref name="path"/>; relative paths inside it are taken from the plan's folder.</summary>
@@ -105,6 +105,19 @@ public static class PlanReader
 
         var (correction, q) = map.TryGetValue("correction", out var co) ? ReadCorrection(ctx, co) : (CorrectionSpec.Default, 0.05);
 
+        bool jackknife = false;
+        if (map.TryGetValue("intervals", out var iv))
+        {
+            string v = ctx.Scalar(iv, "intervals");
+            jackknife = v switch
+            {
+                "none" => false,
+                "jackknife" => true,
+                _ => throw ctx.Error(iv, "intervals", $"'{v}' is not allowed; use 'none' or 'jackknife' (leave-one-trial-out 95 % intervals)"),
+            };
+        }
+        int matchTrials = map.TryGetValue("match_trials", out var mt) ? ctx.Int(mt, "match_trials", 0, 100_000) : 0;
+
         string output = ctx.Path(ctx.Required(map, root, "output", "the plan"), "output");
         bool figures = !map.TryGetValue("figures", out var fi) || ctx.Bool(fi, "figures");
         int threads = map.TryGetValue("threads", out var th) ? ctx.Int(th, "threads", 0, 4096) : 0;
@@ -129,6 +142,8 @@ public static class PlanReader
             Seed = seed,
             Q = q,
             Correction = correction,
+            JackknifeIntervals = jackknife,
+            MatchTrials = matchTrials,
             Output = output,
             Figures = figures,
             Threads = threads,

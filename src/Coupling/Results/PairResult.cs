@@ -16,6 +16,9 @@ namespace Coupling.Results;
 /// <param name="Significant">Whether the corrected p is at or below the plan's level.</param>
 /// <param name="Positions">Channel positions where known (same order as <paramref name="Channels"/>), else null.</param>
 /// <param name="Correction">The correction's details (method, level, p source per pair, network components), when known.</param>
+/// <param name="IntervalLow">Lower end of the jackknife 95 % interval of the value per pair, when computed.</param>
+/// <param name="IntervalHigh">Upper end of the jackknife 95 % interval of the value per pair, when computed.</param>
+/// <param name="ValueMatched">The value matched to the smallest condition's trial count (mean over random subsets), when computed.</param>
 public sealed record PairResult(
     string Condition,
     string Band,
@@ -27,4 +30,7 @@ public sealed record PairResult(
     double[] PCorrected,
     bool[] Significant,
     IReadOnlyList<Formats.ChannelPosition?>? Positions = null,
-    Statistics.FamilyOutcome? Correction = null);
+    Statistics.FamilyOutcome? Correction = null,
+    double[]? IntervalLow = null,
+    double[]? IntervalHigh = null,
+    double[]? ValueMatched = null);
