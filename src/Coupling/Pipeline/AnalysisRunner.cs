@@ -89,6 +89,7 @@ public static class AnalysisRunner
                 $"With {plan.Surrogates} surrogates the smallest attainable p is 1/{plan.Surrogates + 1}, above alpha = {plan.Q:G3}: no pair can be significant. Use at least {needed} surrogates."));
 
         var results = new List<PairResult>();
+        var directions = plan.Direction ? new List<PairDirection>() : null;
         var summaries = new List<ConditionSummary>();
         for (int ci = 0; ci < plan.Conditions.Count; ci++)
         {
@@ -116,10 +117,12 @@ public static class AnalysisRunner
                         m.Observed, m.Z, o.P, o.PCorrected, o.Significant, input.Channels.Select(c => c.Position).ToArray(), o,
                         Slice(low, k), Slice(high, k), Slice(matched, k)));
                 }
+                directions?.AddRange(DirectionStep.Run(trials, narrowband, plan.Bands[bi], plan.Window,
+                    results.Skip(results.Count - tested.Count).ToArray(), plan.Surrogates, Seeds.ForDirection(plan.Seed, ci, bi)));
             }
         }
         var contrasts = Contrast(plan, input, decompositions, steps, pad, progress, workers, cancellationToken);
-        return new Analysis(results, summaries, decompositions.Select(d => d.Info).ToArray(), steps, pad, warnings, contrasts);
+        return new Analysis(results, summaries, decompositions.Select(d => d.Info).ToArray(), steps, pad, warnings, contrasts, directions);
     }
 
     /// <summary>

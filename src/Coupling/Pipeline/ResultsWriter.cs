@@ -84,6 +84,12 @@ public static class ResultsWriter
             }
         }
 
+        if (analysis.Directions is not null)
+        {
+            DirectionTableWriter.Write(analysis.Directions, folder.PathOf("directions.tsv"));
+            written.Add("directions.tsv");
+        }
+
         RunReport.Write(plan, input, analysis, graphs.Select(g => g.Item4).ToArray(), folder.PathOf("report.md"));
         written.Add("report.md");
 

@@ -25,6 +25,10 @@ public static class Seeds
     public static ulong ForMatching(ulong seed, int condition, int band) =>
         Mix(seed, (1UL << 41) + 1 + (ulong)condition * 1024 + (ulong)band);
 
+    /// <summary>A seed for the phase-slope-index surrogates of condition x band, with an index offset by 2^42.</summary>
+    public static ulong ForDirection(ulong seed, int condition, int band) =>
+        Mix(seed, (1UL << 42) + 1 + (ulong)condition * 1024 + (ulong)band);
+
     private static ulong Mix(ulong seed, ulong index)
     {
         ulong z = unchecked(seed + 0x9E3779B97F4A7C15UL * index);

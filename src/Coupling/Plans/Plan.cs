@@ -68,6 +68,9 @@ public sealed record Plan
     /// <summary>Random subsets per condition for values matched to the smallest condition's trial count; 0 for no matching.</summary>
     public int MatchTrials { get; init; }
 
+    /// <summary>Whether direction (coherency phase, lag, leader, phase-slope index) is computed for significant pairs (plan key <c>direction</c>).</summary>
+    public bool Direction { get; init; }
+
     /// <summary>The correction across pairs and its options.</summary>
     public CorrectionSpec Correction { get; init; } = CorrectionSpec.Default;
 

@@ -19,7 +19,7 @@ public static class PlanReader
     [
         "recording", "events", "channels", "sample_rate", "epochs", "conditions", "trial", "window", "evoked",
         "bands", "decomposition", "measures", "surrogates", "seed", "correction", "output", "figures", "threads",
-        "contrasts", "intervals", "match_trials",
+        "contrasts", "intervals", "match_trials", "direction",
     ];
 
     /// <summary>Reads the plan at <paramref name="path"/>; relative paths inside it are taken from the plan's folder.</summary>
@@ -144,6 +144,7 @@ public static class PlanReader
             Correction = correction,
             JackknifeIntervals = jackknife,
             MatchTrials = matchTrials,
+            Direction = map.TryGetValue("direction", out var dr) && ctx.Bool(dr, "direction"),
             Output = output,
             Figures = figures,
             Threads = threads,

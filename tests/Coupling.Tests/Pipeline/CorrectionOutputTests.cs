@@ -16,7 +16,7 @@ public sealed class CorrectionOutputTests
         // 19 surrogates: 1/20 <= alpha = 0.05, enough for the family-wise correction (no warning), where
         // Benjamini-Hochberg over 6 pairs would need 119 (SurrogateCountWarningTests).
         File.WriteAllText(plan, SmallStudy.PlanText(surrogates: 19) +
-            "\ncorrection: { method: max-statistic, alpha: 0.05 }\nintervals: jackknife\nmatch_trials: 5\n");
+            "\ncorrection: { method: max-statistic, alpha: 0.05 }\nintervals: jackknife\nmatch_trials: 5\ndirection: true\n");
         var outcome = AnalysisRunner.Run(PlanReader.Read(plan));
         Assert.Empty(outcome.Warnings);
         // A and B share a 10 Hz source (SmallStudy): the PLV of A-B is significant after family-wise correction.
@@ -35,6 +35,14 @@ public sealed class CorrectionOutputTests
         Assert.True(low < value && value < high);
         // One condition: it is its own smallest, so the matched value is the value itself.
         Assert.Equal(first[header.IndexOf("value")], first[header.IndexOf("value_matched")]);
+
+        // The significant pair gets a direction row. A and B share one source at zero lag (SmallStudy), so the phase is
+        // near 0 and the lag small next to the 100 ms period of 10 Hz.
+        var directions = File.ReadAllLines(Path.Combine(outcome.OutputFolder, "directions.tsv")).Select(l => l.Split('\t')).ToArray();
+        Assert.Equal(Coupling.Outputs.DirectionTableWriter.Columns, directions[0]);
+        var ab = directions.Skip(1).Single(r => r[2] == "A" && r[3] == "B");
+        Assert.Contains("plv", ab[4].Split(','));
+        Assert.InRange(Math.Abs(double.Parse(ab[6], System.Globalization.CultureInfo.InvariantCulture)), 0, 10);
 
         string report = File.ReadAllText(Path.Combine(outcome.OutputFolder, "report.md"));
         Assert.Contains("family-wise error at alpha = 0.05 by the maximum over pairs", report);

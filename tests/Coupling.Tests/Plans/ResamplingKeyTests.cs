@@ -23,7 +23,9 @@ public sealed class ResamplingKeyTests
     [Fact]
     public void Intervals_and_matching_are_read()
     {
-        var plan = Parse("intervals: jackknife", "match_trials: 50");
+        var plan = Parse("intervals: jackknife", "match_trials: 50", "direction: true");
+        Assert.True(plan.Direction);
+        Assert.False(Parse().Direction);
         Assert.True(plan.JackknifeIntervals);
         Assert.Equal(50, plan.MatchTrials);
     }
