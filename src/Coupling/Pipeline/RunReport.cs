@@ -108,8 +108,11 @@ public static class RunReport
         sb.AppendLine("- Trial-shuffle surrogates keep each channel's stimulus-locked (evoked) activity, so a response shared only through the stimulus is not significant; " +
                       "the null hypothesis is no trial-by-trial dependence between the two channels.");
         sb.AppendLine("- Correction is within each condition x band x measure; looking across many tables raises the chance of a false finding again.");
+        sb.AppendLine("- ppc and wpli-debiased are unbiased in the number of trials; the other measures grow as trials fall, so compare their values across conditions " +
+                      "with different trial counts only through value_matched (plan key match_trials) or the condition contrasts.");
         sb.AppendLine("- Files: edges.tsv (every pair), nodes.tsv (degree, strength), matrices/ (CSV), graphs/ (GraphML), figures/ (PNG), manifest.json (everything the run depended on)" +
-                      (analysis.Contrasts.Count > 0 ? "; contrasts.tsv, matrices/contrasts/ and figures/contrasts/ (condition differences)." : "."));
+                      (analysis.Contrasts.Count > 0 ? "; contrasts.tsv, matrices/contrasts/ and figures/contrasts/ (condition differences)" : "") +
+                      (analysis.Directions is not null ? "; directions.tsv (phase, lag, leading channel and phase-slope index of significant pairs)." : "."));
         AtomicFile.WriteAllText(path, sb.ToString());
     }
 }
