@@ -22,26 +22,34 @@ public static class AnalysisRunner
     /// <param name="threads">Worker threads, overriding the plan's when above 0.</param>
     /// <param name="commandLine">The command line that started the run, for the manifest.</param>
     /// <param name="cancellationToken">Stops the run (with <see cref="OperationCanceledException"/>) before anything is committed.</param>
+    /// <param name="restart">Discard the units kept by an interrupted earlier run instead of resuming it (see <see cref="UnfinishedRun"/>).</param>
     public static RunOutcome Run(Plan plan, IProgress<RunProgress>? progress = null, int threads = 0, string? commandLine = null,
-        CancellationToken cancellationToken = default)
+        CancellationToken cancellationToken = default, bool restart = false)
     {
         var started = DateTimeOffset.UtcNow;
         var clock = Stopwatch.StartNew();
         int workers = threads > 0 ? threads : plan.Threads;
 
+        PlanInputs.CheckOutput(plan);
+        var units = UnfinishedRun.Open(plan, restart);
         progress?.Report(new RunProgress("reading input", 0, 0));
         var input = InputLoader.Load(plan);
-        var analysis = Analyse(plan, input, progress, workers, cancellationToken);
+        var analysis = Analyse(plan, input, progress, workers, cancellationToken, units);
         cancellationToken.ThrowIfCancellationRequested();
 
         progress?.Report(new RunProgress("writing results", 0, 0));
-        var written = ResultsWriter.Write(plan, input, analysis, new RunContext(started, clock.Elapsed, commandLine, workers), progress);
-        return new RunOutcome(written, analysis.Results, analysis.Conditions, analysis.Warnings, clock.Elapsed, analysis.Contrasts);
+        var written = ResultsWriter.Write(plan, input, analysis, new RunContext(started, clock.Elapsed, commandLine, workers, units.Resumed), progress);
+        units.Remove();
+        return new RunOutcome(written, analysis.Results, analysis.Conditions, analysis.Warnings, clock.Elapsed, analysis.Contrasts, units.Resumed);
     }
 
-    /// <summary>Everything computed by a run, before it is written.</summary>
+    /// <summary>
+    /// Everything computed by a run, before it is written. With <paramref name="units"/> (the last parameter) each
+    /// condition x band and contrast x band is loaded when an interrupted earlier run kept it, and kept once computed;
+    /// without, every unit is computed.
+    /// </summary>
     public static Analysis Analyse(Plan plan, LoadedInput input, IProgress<RunProgress>? progress, int workers,
-        CancellationToken cancellationToken = default)
+        CancellationToken cancellationToken = default, UnfinishedRun? units = null)
     {
         var decompositions = plan.Bands
             .Select(b => InPlan(plan, $"bands.{b.Name}", () => BandDecompositions.Create(plan.Decomposition.Method, b, input.SampleRate,
@@ -99,15 +107,27 @@ public static class AnalysisRunner
             for (int bi = 0; bi < decompositions.Length; bi++)
             {
                 string stage = $"{trials.Condition} / {plan.Bands[bi].Name}";
-                progress?.Report(new RunProgress($"{stage}: band isolation", 0, 0));
-                var narrowband = NarrowbandExtractor.Extract(trials, decompositions[bi], plan.Window, steps[bi], workers);
+                NarrowbandSet? extracted = null;
+                NarrowbandSet Narrowband()
+                {
+                    if (extracted is not null) return extracted;
+                    progress?.Report(new RunProgress($"{stage}: band isolation", 0, 0));
+                    return extracted = NarrowbandExtractor.Extract(trials, decompositions[bi], plan.Window, steps[bi], workers);
+                }
                 var stageProgress = progress is null ? null
                     : new Progress<int>(done => progress.Report(new RunProgress($"{stage}: surrogates", done, plan.Surrogates)));
-                var tested = FamilyCorrection.TestCondition(narrowband, plan.Measures, plan.Surrogates, Seeds.For(plan.Seed, ci, bi),
-                    trials.Condition, plan.Correction, plan.Q, workers > 0 ? workers : null, stageProgress, cancellationToken);
-                var (low, high) = plan.JackknifeIntervals ? TrialResampling.Jackknife(narrowband, plan.Measures) : (null, null);
+                IReadOnlyList<SurrogateResult> Compute() =>
+                    SurrogateTest.Run(Narrowband(), plan.Measures, plan.Surrogates, Seeds.For(plan.Seed, ci, bi), trials.Condition,
+                        workers > 0 ? workers : null, stageProgress, cancellationToken);
+                // Corrections that need the draws themselves (maxima, tails) are computed whole, not kept as resumable units.
+                var tested = FamilyCorrection.NeedsDraws(plan.Correction)
+                    ? FamilyCorrection.TestCondition(Narrowband(), plan.Measures, plan.Surrogates, Seeds.For(plan.Seed, ci, bi),
+                        trials.Condition, plan.Correction, plan.Q, workers > 0 ? workers : null, stageProgress, cancellationToken)
+                    : (units?.Condition(ci, bi, UnfinishedRun.ConditionUnit(trials.Condition, plan.Bands[bi].Name), Compute) ?? Compute())
+                        .Select(t => (t, FamilyCorrection.FromPValues(plan.Correction, plan.Q, t.P))).ToArray();
+                var (low, high) = plan.JackknifeIntervals ? TrialResampling.Jackknife(Narrowband(), plan.Measures) : (null, null);
                 var matched = plan.MatchTrials > 0
-                    ? TrialResampling.Matched(narrowband, plan.Measures, trialCounts.Values.Min(), plan.MatchTrials, Seeds.ForMatching(plan.Seed, ci, bi))
+                    ? TrialResampling.Matched(Narrowband(), plan.Measures, trialCounts.Values.Min(), plan.MatchTrials, Seeds.ForMatching(plan.Seed, ci, bi))
                     : null;
                 double[]? Slice(double[]? all, int k) => all?.AsSpan(k * pairs, pairs).ToArray();
                 for (int k = 0; k < tested.Count; k++)
@@ -117,11 +137,12 @@ public static class AnalysisRunner
                         m.Observed, m.Z, o.P, o.PCorrected, o.Significant, input.Channels.Select(c => c.Position).ToArray(), o,
                         Slice(low, k), Slice(high, k), Slice(matched, k)));
                 }
-                directions?.AddRange(DirectionStep.Run(trials, narrowband, plan.Bands[bi], plan.Window,
+                if (directions is not null)
+                    directions.AddRange(DirectionStep.Run(trials, Narrowband(), plan.Bands[bi], plan.Window,
                     results.Skip(results.Count - tested.Count).ToArray(), plan.Surrogates, Seeds.ForDirection(plan.Seed, ci, bi)));
             }
         }
-        var contrasts = Contrast(plan, input, decompositions, steps, pad, progress, workers, cancellationToken);
+        var contrasts = Contrast(plan, input, decompositions, steps, pad, progress, workers, cancellationToken, units);
         return new Analysis(results, summaries, decompositions.Select(d => d.Info).ToArray(), steps, pad, warnings, contrasts, directions);
     }
 
@@ -132,7 +153,7 @@ public static class AnalysisRunner
     /// again) and per worker thread one split's data and kernel tables.
     /// </summary>
     private static List<ContrastPairResult> Contrast(Plan plan, LoadedInput input, IBandDecomposition[] decompositions, int[] steps,
-        int pad, IProgress<RunProgress>? progress, int workers, CancellationToken cancellationToken)
+        int pad, IProgress<RunProgress>? progress, int workers, CancellationToken cancellationToken, UnfinishedRun? units)
     {
         var results = new List<ContrastPairResult>();
         var positions = input.Channels.Select(c => c.Position).ToArray();
@@ -145,13 +166,35 @@ public static class AnalysisRunner
             {
                 cancellationToken.ThrowIfCancellationRequested();
                 string stage = $"{contrast.ConditionA} vs {contrast.ConditionB} / {plan.Bands[bi].Name}";
-                progress?.Report(new RunProgress($"{stage}: band isolation", 0, 0));
-                var a = NarrowbandExtractor.Extract(trialsA, decompositions[bi], plan.Window, steps[bi], workers);
-                var b = NarrowbandExtractor.Extract(trialsB, decompositions[bi], plan.Window, steps[bi], workers);
+                NarrowbandSet? extractedA = null, extractedB = null;
+                (NarrowbandSet A, NarrowbandSet B) Narrowband()
+                {
+                    if (extractedA is null || extractedB is null)
+                    {
+                        progress?.Report(new RunProgress($"{stage}: band isolation", 0, 0));
+                        extractedA = NarrowbandExtractor.Extract(trialsA, decompositions[bi], plan.Window, steps[bi], workers);
+                        extractedB = NarrowbandExtractor.Extract(trialsB, decompositions[bi], plan.Window, steps[bi], workers);
+                    }
+                    return (extractedA, extractedB);
+                }
                 var stageProgress = progress is null ? null
                     : new Progress<int>(done => progress.Report(new RunProgress($"{stage}: label permutations", done, plan.Surrogates)));
-                var tested = FamilyCorrection.TestContrast(a, b, plan.Measures, plan.Surrogates, Seeds.ForContrast(plan.Seed, ki, bi),
-                    contrast.Name, plan.Correction, plan.Q, workers > 0 ? workers : null, stageProgress, cancellationToken);
+                IReadOnlyList<ContrastResult> Compute()
+                {
+                    var (a, b) = Narrowband();
+                    return ConditionContrast.Run(a, b, plan.Measures, plan.Surrogates, Seeds.ForContrast(plan.Seed, ki, bi), contrast.Name,
+                        workers > 0 ? workers : null, stageProgress, cancellationToken);
+                }
+                IReadOnlyList<(ContrastResult, FamilyOutcome)> tested;
+                if (FamilyCorrection.NeedsDraws(plan.Correction))
+                {
+                    var (a, b) = Narrowband();
+                    tested = FamilyCorrection.TestContrast(a, b, plan.Measures, plan.Surrogates, Seeds.ForContrast(plan.Seed, ki, bi),
+                        contrast.Name, plan.Correction, plan.Q, workers > 0 ? workers : null, stageProgress, cancellationToken);
+                }
+                else
+                    tested = (units?.Contrast(ki, bi, UnfinishedRun.ContrastUnit(contrast.Name, plan.Bands[bi].Name), Compute) ?? Compute())
+                        .Select(t => (t, FamilyCorrection.FromPValues(plan.Correction, plan.Q, t.P))).ToArray();
                 foreach (var (m, o) in tested)
                     results.Add(new ContrastPairResult(contrast.Name, contrast.ConditionA, contrast.ConditionB, plan.Bands[bi].Name,
                         MeasureCatalog.Key(m.Measure), trialsA.Channels, m.ValueA, m.ValueB, m.Difference, m.Z, o.P, o.PCorrected,

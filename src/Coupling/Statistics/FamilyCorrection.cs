@@ -61,6 +61,27 @@ public static class FamilyCorrection
             true, tail, maxima))).ToArray();
     }
 
+    /// <summary>Whether <paramref name="correction"/> needs each draw's values (maximum statistic, network-based statistic, Pareto tail),
+    /// not only the per-pair p-values.</summary>
+    public static bool NeedsDraws(CorrectionSpec correction)
+    {
+        ArgumentNullException.ThrowIfNull(correction);
+        return correction.ParetoTail || correction.Method is CorrectionMethod.MaxStatistic or CorrectionMethod.NetworkBased;
+    }
+
+    /// <summary>
+    /// The outcome of a correction that needs only the per-pair p-values (Benjamini-Hochberg, Benjamini-Yekutieli, none,
+    /// with counted p): the same as <see cref="TestCondition"/> or <see cref="TestContrast"/> would give for those p.
+    /// </summary>
+    /// <exception cref="ArgumentException">The correction needs the draws (<see cref="NeedsDraws"/>).</exception>
+    public static FamilyOutcome FromPValues(CorrectionSpec correction, double level, double[] p)
+    {
+        ArgumentNullException.ThrowIfNull(p);
+        if (NeedsDraws(correction))
+            throw new ArgumentException($"Correction '{CorrectionSpec.Key(correction.Method)}' needs the surrogate draws, not only p-values.", nameof(correction));
+        return Finish(correction, level, 0, p.Length, 0, 0, p, p, false, null, null);
+    }
+
     private static (FamilyMaxima Maxima, StudentisedStatistic Statistic)? Replay(CorrectionSpec correction,
         (double[] Observed, double[] Mean, double[] Sd)[] families, bool[] twoSided, int draws, int channels,
         Action<IDrawObserver> run)
