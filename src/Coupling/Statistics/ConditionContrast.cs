@@ -47,10 +47,10 @@ public static class ConditionContrast
     public static IReadOnlyList<ContrastResult> Run(NarrowbandSet a, NarrowbandSet b, IReadOnlyList<Measure> measures, int draws,
         ulong seed, string contrast, int? maxThreads = null, IProgress<int>? progress = null,
         CancellationToken cancellationToken = default) =>
-        Run(a, b, measures, draws, seed, contrast, maxThreads, progress, cancellationToken, null);
+        RunObserved(a, b, measures, draws, seed, contrast, maxThreads, progress, cancellationToken, null);
 
     /// <summary>As the public <c>Run</c>, with <paramref name="observer"/> seeing every draw's differences (cells measure-major, pairs in PairIndex order).</summary>
-    internal static IReadOnlyList<ContrastResult> Run(NarrowbandSet a, NarrowbandSet b, IReadOnlyList<Measure> measures, int draws,
+    internal static IReadOnlyList<ContrastResult> RunObserved(NarrowbandSet a, NarrowbandSet b, IReadOnlyList<Measure> measures, int draws,
         ulong seed, string contrast, int? maxThreads, IProgress<int>? progress, CancellationToken cancellationToken,
         IDrawObserver? observer)
     {

@@ -22,7 +22,7 @@ namespace Coupling.Statistics;
 public static class FamilyCorrection
 {
     /// <summary>The trial-shuffle surrogate test of one condition's set, corrected per measure across its pairs.</summary>
-    /// <exception cref="InputException">As <see cref="SurrogateTest.Run(NarrowbandSet, IReadOnlyList{Measure}, int, ulong, string, int?, IProgress{int}?, CancellationToken)"/>.</exception>
+    /// <exception cref="InputException">As <see cref="SurrogateTest.Run"/>.</exception>
     public static IReadOnlyList<(SurrogateResult Test, FamilyOutcome Outcome)> TestCondition(NarrowbandSet set,
         IReadOnlyList<Measure> measures, int draws, ulong seed, string condition, CorrectionSpec correction, double level,
         int? maxThreads = null, IProgress<int>? progress = null, CancellationToken cancellationToken = default)
@@ -35,15 +35,15 @@ public static class FamilyCorrection
         for (int k = 0; k < measures.Count; k++)
             twoSided.AsSpan(k * pairs, pairs).Fill(MeasureCatalog.TailOf(measures[k]) == TestTail.TwoSided);
         var tail = correction.ParetoTail ? new TailSample(cells, TailSample.KeptFor(draws)) : null;
-        var tested = SurrogateTest.Run(set, measures, draws, seed, condition, maxThreads, progress, cancellationToken, tail);
+        var tested = SurrogateTest.RunObserved(set, measures, draws, seed, condition, maxThreads, progress, cancellationToken, tail);
         var maxima = Replay(correction, tested.Select(t => (t.Observed, t.NullMean, t.NullSd)).ToArray(), twoSided, draws,
-            set.ChannelCount, observer => SurrogateTest.Run(set, measures, draws, seed, condition, maxThreads, progress, cancellationToken, observer));
+            set.ChannelCount, observer => SurrogateTest.RunObserved(set, measures, draws, seed, condition, maxThreads, progress, cancellationToken, observer));
         return tested.Select((t, k) => (t, Finish(correction, level, k, pairs, set.ChannelCount, draws, t.Observed, t.P,
             twoSided[k * pairs], tail, maxima))).ToArray();
     }
 
     /// <summary>The condition-label permutation test of a contrast, corrected per measure across its pairs (two-sided).</summary>
-    /// <exception cref="InputException">As <see cref="ConditionContrast.Run(NarrowbandSet, NarrowbandSet, IReadOnlyList{Measure}, int, ulong, string, int?, IProgress{int}?, CancellationToken)"/>.</exception>
+    /// <exception cref="InputException">As <see cref="ConditionContrast.Run"/>.</exception>
     public static IReadOnlyList<(ContrastResult Test, FamilyOutcome Outcome)> TestContrast(NarrowbandSet a, NarrowbandSet b,
         IReadOnlyList<Measure> measures, int draws, ulong seed, string contrast, CorrectionSpec correction, double level,
         int? maxThreads = null, IProgress<int>? progress = null, CancellationToken cancellationToken = default)
@@ -54,9 +54,9 @@ public static class FamilyCorrection
         int pairs = PairIndex.Count(a.ChannelCount), cells = measures.Count * pairs;
         var twoSided = Enumerable.Repeat(true, cells).ToArray();
         var tail = correction.ParetoTail ? new TailSample(cells, TailSample.KeptFor(draws)) : null;
-        var tested = ConditionContrast.Run(a, b, measures, draws, seed, contrast, maxThreads, progress, cancellationToken, tail);
+        var tested = ConditionContrast.RunObserved(a, b, measures, draws, seed, contrast, maxThreads, progress, cancellationToken, tail);
         var maxima = Replay(correction, tested.Select(t => (t.Difference, t.NullMean, t.NullSd)).ToArray(), twoSided, draws,
-            a.ChannelCount, observer => ConditionContrast.Run(a, b, measures, draws, seed, contrast, maxThreads, progress, cancellationToken, observer));
+            a.ChannelCount, observer => ConditionContrast.RunObserved(a, b, measures, draws, seed, contrast, maxThreads, progress, cancellationToken, observer));
         return tested.Select((t, k) => (t, Finish(correction, level, k, pairs, a.ChannelCount, draws, t.Difference, t.P,
             true, tail, maxima))).ToArray();
     }

@@ -44,10 +44,10 @@ public static class SurrogateTest
     public static IReadOnlyList<SurrogateResult> Run(NarrowbandSet set, IReadOnlyList<Measure> measures, int draws,
         ulong seed, string condition, int? maxThreads = null, IProgress<int>? progress = null,
         CancellationToken cancellationToken = default) =>
-        Run(set, measures, draws, seed, condition, maxThreads, progress, cancellationToken, null);
+        RunObserved(set, measures, draws, seed, condition, maxThreads, progress, cancellationToken, null);
 
     /// <summary>As the public <c>Run</c>, with <paramref name="observer"/> seeing every draw's values (cells measure-major, pairs in PairIndex order).</summary>
-    internal static IReadOnlyList<SurrogateResult> Run(NarrowbandSet set, IReadOnlyList<Measure> measures, int draws,
+    internal static IReadOnlyList<SurrogateResult> RunObserved(NarrowbandSet set, IReadOnlyList<Measure> measures, int draws,
         ulong seed, string condition, int? maxThreads, IProgress<int>? progress, CancellationToken cancellationToken,
         IDrawObserver? observer)
     {
