@@ -3,6 +3,7 @@ using Coupling.Formats;
 using Coupling.Pipeline;
 using Coupling.Plans;
 using Coupling.Simulation;
+using Coupling.Statistics;
 
 namespace Coupling.Cli;
 
@@ -152,7 +153,7 @@ internal static class Commands
         string verdict = p.Surrogates == 0 ? " (values only, no test)."
             : p.Surrogates < p.SurrogatesForOneDiscovery ? " (too few for a lone coupled pair to pass the correction)." : ".";
         output.WriteLine(string.Create(inv,
-            $"Surrogates needed for a single discovery among {p.Pairs} pairs at q = {plan.Q:G3}: at least {p.SurrogatesForOneDiscovery}; the plan has {p.Surrogates}{verdict}"));
+            $"Surrogates needed for a single discovery among {p.Pairs} pairs at {(CorrectionSpec.ControlsFalseDiscoveries(plan.Correction.Method) ? "q" : "alpha")} = {plan.Q:G3} ({CorrectionSpec.Key(plan.Correction.Method)}): at least {p.SurrogatesForOneDiscovery}; the plan has {p.Surrogates}{verdict}"));
         foreach (var w in p.Warnings) output.WriteLine($"warning: {w}");
         string state = !Directory.Exists(p.Output) ? " (new)"
             : Directory.EnumerateFileSystemEntries(p.Output).Any() ? " (earlier results, to be replaced)" : " (an empty folder, to be filled)";

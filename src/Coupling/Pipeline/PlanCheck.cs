@@ -55,7 +55,7 @@ public static class PlanCheck
             .ToArray();
         int pairs = PairIndex.Count(input.Channels.Count);
         return new PlanPreview(plan.Source, plan.Recording, input.SampleRate, input.Channels.Select(c => c.Label).ToArray(), conditions, bands,
-            units, kept.KeptUnits(plan), plan.Surrogates, pairs, (int)Math.Ceiling(pairs / plan.Q) - 1, plan.Output,
+            units, kept.KeptUnits(plan), plan.Surrogates, pairs, SurrogateFloor.Of(plan.Correction, plan.Q, pairs).Needed, plan.Output,
             BandWarnings.For(plan, decompositions, input.SampleRate, input.EpochSamples));
     }
 

@@ -12,7 +12,8 @@ namespace Coupling.Pipeline;
 /// <param name="Surrogates">Surrogate draws per unit (0: values without a test).</param>
 /// <param name="Pairs">Channel pairs per table.</param>
 /// <param name="SurrogatesForOneDiscovery">Fewest surrogates with which a single coupled pair can pass the correction,
-/// ⌈pairs / q⌉ − 1 (its smallest p, 1/(M + 1), must reach q / pairs).</param>
+/// ⌈pairs / q⌉ − 1 for Benjamini-Hochberg (its smallest p, 1/(M + 1), must reach q / pairs), ⌈c(m)·pairs / q⌉ − 1 for
+/// Benjamini-Yekutieli, ⌈1/alpha⌉ − 1 for the family-wise corrections and none, 1 with the Pareto tail.</param>
 /// <param name="Output">The results folder.</param>
 /// <param name="Warnings">Warnings about the bands that the run would give too (e.g. too few cycles in the window).</param>
 public sealed record PlanPreview(
