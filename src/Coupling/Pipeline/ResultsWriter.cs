@@ -92,6 +92,12 @@ public static class ResultsWriter
             }
         }
 
+        if (analysis.Directions is not null)
+        {
+            DirectionTableWriter.Write(analysis.Directions, folder.PathOf("directions.tsv"));
+            written.Add("directions.tsv");
+        }
+
         RunReport.Write(plan, input, analysis, graphs.Select(g => g.Item4).ToArray(), folder.PathOf("report.md"));
         written.Add("report.md");
 
@@ -118,6 +124,7 @@ public static class ResultsWriter
                 ["threads"] = context.Threads,
                 ["analysis_seconds"] = context.Elapsed.TotalSeconds,
                 ["input_notes"] = new JsonArray(input.Notes.Select(n => (JsonNode)JsonValue.Create(n)!).ToArray()),
+                ["correction"] = CorrectionText.Manifest(plan.Correction, plan.Q),
                 ["warnings"] = new JsonArray(analysis.Warnings.Select(n => (JsonNode)JsonValue.Create(n)!).ToArray()),
             },
         };

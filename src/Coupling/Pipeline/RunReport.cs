@@ -49,7 +49,7 @@ public static class RunReport
             sb.AppendLine("- Significance: not tested (surrogates: 0, values only); p, z and corrected p are empty (NA) and no pair is significant");
         else
         sb.AppendLine($"- Significance: {plan.Surrogates} trial-shuffle surrogates per condition and band (seed {plan.Seed}); p = (b+1)/(M+1); " +
-                      $"Benjamini-Hochberg false discovery rate at q = {plan.Q.ToString("G4", inv)} across the pairs of each condition x band x measure");
+                      $"{CorrectionText.Describe(plan.Correction, plan.Q)}; family: {CorrectionText.ConditionFamily}");
         sb.AppendLine();
         sb.AppendLine("| band | Hz | decomposition (as used) | time step (samples) |");
         sb.AppendLine("|---|---|---|---|");
@@ -83,7 +83,7 @@ public static class RunReport
             sb.AppendLine("## Condition contrasts");
             sb.AppendLine();
             sb.AppendLine($"Differences A − B tested by {plan.Surrogates} random reassignments of the condition labels of the pooled trials " +
-                          $"(group sizes kept; two-sided p = (b+1)/(M+1); Benjamini-Hochberg at q = {plan.Q.ToString("G4", inv)} across the pairs of each contrast x band x measure). " +
+                          $"(group sizes kept; two-sided p = (b+1)/(M+1); {CorrectionText.Describe(plan.Correction, plan.Q)}; family: {CorrectionText.ContrastFamily}). " +
                           "A pair significant in one condition and not in the other is NOT evidence that the two differ; this test is.");
             sb.AppendLine();
             sb.AppendLine("| contrast | band | measure | significant | largest significant differences (A, B, A − B, z) |");
@@ -103,6 +103,7 @@ public static class RunReport
             sb.AppendLine();
         }
 
+        NetworkComponentsReport.Append(sb, analysis);
         sb.AppendLine("## Reading these results");
         sb.AppendLine();
         sb.AppendLine("- plv, ppc and coherence also respond to volume conduction (one source seen by two channels at zero lag); " +
@@ -110,8 +111,11 @@ public static class RunReport
         sb.AppendLine("- Trial-shuffle surrogates keep each channel's stimulus-locked (evoked) activity, so a response shared only through the stimulus is not significant; " +
                       "the null hypothesis is no trial-by-trial dependence between the two channels.");
         sb.AppendLine("- Correction is within each condition x band x measure; looking across many tables raises the chance of a false finding again.");
+        sb.AppendLine("- ppc and wpli-debiased are unbiased in the number of trials; the other measures grow as trials fall, so compare their values across conditions " +
+                      "with different trial counts only through value_matched (plan key match_trials) or the condition contrasts.");
         sb.AppendLine("- Files: edges.tsv (every pair), nodes.tsv (degree, strength, clustering, component, module), graphs.tsv (graph measures), matrices/ (CSV), graphs/ (GraphML), figures/ (PNG and SVG), manifest.json (everything the run depended on)" +
-                      (analysis.Contrasts.Count > 0 ? "; contrasts.tsv, matrices/contrasts/ and figures/contrasts/ (condition differences)." : "."));
+                      (analysis.Contrasts.Count > 0 ? "; contrasts.tsv, matrices/contrasts/ and figures/contrasts/ (condition differences)" : "") +
+                      (analysis.Directions is not null ? "; directions.tsv (phase, lag, leading channel and phase-slope index of significant pairs)." : "."));
         AtomicFile.WriteAllText(path, sb.ToString());
     }
 }
