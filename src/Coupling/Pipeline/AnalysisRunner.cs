@@ -86,6 +86,7 @@ public static class AnalysisRunner
 
         var results = new List<PairResult>();
         var summaries = new List<ConditionSummary>();
+        var signals = new List<BandSignalSummary>();
         for (int ci = 0; ci < plan.Conditions.Count; ci++)
         {
             var trials = input.Trials(plan.Conditions[ci], plan.Trial, pad);
@@ -96,6 +97,7 @@ public static class AnalysisRunner
                 string stage = $"{trials.Condition} / {plan.Bands[bi].Name}";
                 progress?.Report(new RunProgress($"{stage}: band isolation", 0, 0));
                 var narrowband = NarrowbandExtractor.Extract(trials, decompositions[bi], plan.Window, steps[bi], workers);
+                signals.Add(SignalSummaries.Summarise(narrowband, trials.Condition));
                 var stageProgress = progress is null ? null
                     : new Progress<int>(done => progress.Report(new RunProgress($"{stage}: surrogates", done, plan.Surrogates)));
                 var tested = SurrogateTest.Run(narrowband, plan.Measures, plan.Surrogates, Seeds.For(plan.Seed, ci, bi), trials.Condition,
@@ -110,7 +112,14 @@ public static class AnalysisRunner
             }
         }
         var contrasts = Contrast(plan, input, decompositions, steps, pad, progress, workers, cancellationToken);
-        return new Analysis(results, summaries, decompositions.Select(d => d.Info).ToArray(), steps, pad, warnings, contrasts);
+        SurrogateDistribution? example = null;
+        if (plan.Figures && SurrogateExample.Choose(plan, results) is var (r, pair, chosen))
+        {
+            int bi = plan.Bands.ToList().FindIndex(b => b.Name == results[r].Band);
+            progress?.Report(new RunProgress($"{results[r].Condition} / {results[r].Band}: surrogate draws of one edge", 0, 0));
+            example = SurrogateExample.Compute(plan, input, results[r], pair, chosen, decompositions[bi], steps[bi], pad, workers);
+        }
+        return new Analysis(results, summaries, decompositions.Select(d => d.Info).ToArray(), steps, pad, warnings, contrasts, signals, example);
     }
 
     /// <summary>

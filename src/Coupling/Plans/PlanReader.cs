@@ -18,7 +18,7 @@ public static class PlanReader
     [
         "recording", "events", "channels", "sample_rate", "epochs", "conditions", "trial", "window", "evoked",
         "bands", "decomposition", "measures", "surrogates", "seed", "correction", "output", "figures", "threads",
-        "contrasts",
+        "contrasts", "surrogate_figure",
     ];
 
     /// <summary>Reads the plan at <paramref name="path"/>; relative paths inside it are taken from the plan's folder.</summary>
@@ -108,6 +108,7 @@ public static class PlanReader
         string output = ctx.Path(ctx.Required(map, root, "output", "the plan"), "output");
         bool figures = !map.TryGetValue("figures", out var fi) || ctx.Bool(fi, "figures");
         int threads = map.TryGetValue("threads", out var th) ? ctx.Int(th, "threads", 0, 4096) : 0;
+        var surrogateFigure = map.TryGetValue("surrogate_figure", out var sf) ? ReadSurrogateFigure(ctx, sf, conditions, bands, measures) : null;
 
         return new Plan
         {
@@ -131,7 +132,28 @@ public static class PlanReader
             Output = output,
             Figures = figures,
             Threads = threads,
+            SurrogateFigure = surrogateFigure,
         };
+    }
+
+    private static SurrogateFigureSpec ReadSurrogateFigure(Context ctx, YamlNode node, IReadOnlyList<ConditionSpec> conditions,
+        IReadOnlyList<Band> bands, IReadOnlyList<Measure> measures)
+    {
+        const string key = "surrogate_figure";
+        var m = ctx.Keys(node, key, ["condition", "band", "measure", "channels"]);
+        string condition = ctx.Scalar(ctx.Required(m, node, "condition", key), $"{key}.condition");
+        if (!conditions.Any(c => c.Name == condition))
+            throw ctx.Error(m["condition"], $"{key}.condition", $"'{condition}' is not a condition of the plan; conditions: {string.Join(", ", conditions.Select(c => c.Name))}");
+        string band = ctx.Scalar(ctx.Required(m, node, "band", key), $"{key}.band");
+        if (!bands.Any(b => b.Name == band))
+            throw ctx.Error(m["band"], $"{key}.band", $"'{band}' is not a band of the plan; bands: {string.Join(", ", bands.Select(b => b.Name))}");
+        string measure = ctx.Scalar(ctx.Required(m, node, "measure", key), $"{key}.measure");
+        if (!measures.Any(x => MeasureCatalog.Key(x) == measure))
+            throw ctx.Error(m["measure"], $"{key}.measure", $"'{measure}' is not a measure of the plan; measures: {string.Join(", ", measures.Select(MeasureCatalog.Key))}");
+        var channels = ctx.StringList(ctx.Required(m, node, "channels", key), $"{key}.channels", unique: true);
+        if (channels.Count != 2)
+            throw ctx.Error(m["channels"], $"{key}.channels", $"expected two channel labels, e.g. [C3, C4], got {channels.Count}");
+        return new SurrogateFigureSpec(condition, band, measure, channels[0], channels[1]);
     }
 
     private static IReadOnlyList<ContrastSpec> ReadContrasts(Context ctx, YamlNode node, IReadOnlyList<ConditionSpec> conditions)
