@@ -93,7 +93,7 @@ internal static class Commands
     private static void PrintOutcome(RunOutcome outcome, TextWriter output)
     {
         output.WriteLine($"Results: {outcome.OutputFolder}");
-        output.WriteLine($"  report:   {Path.Combine(outcome.OutputFolder, "report.md")}");
+        output.WriteLine($"  report:   {Path.Combine(outcome.OutputFolder, "report.html")}");
         output.WriteLine($"  edges:    {Path.Combine(outcome.OutputFolder, "edges.tsv")}");
         output.WriteLine($"  figures:  {Path.Combine(outcome.OutputFolder, "figures")}");
         if (outcome.Contrasts.Count > 0)
