@@ -27,7 +27,8 @@ namespace Coupling.Artefacts;
 /// only the independence of the trials' pairing, so trial-to-trial covariation of amplitude alone can reject it for a
 /// measure that weighs trials by amplitude.</para>
 /// <para><b>Power outlier.</b> Per condition x band with at least 3 channels: the modified z-score of log10 power,
-/// M = 0.6745 (x − median) / MAD, flagged when |M| &gt; <see cref="OutlierScore"/> (Iglewicz &amp; Hoaglin 1993, <i>How to
+/// M = 0.6745 (x − median) / MAD, flagged when |M| &gt; <see cref="OutlierScore"/> and the power is at least <see cref="OutlierFactor"/> times or at most
+/// 1/<see cref="OutlierFactor"/> of the median power (Iglewicz &amp; Hoaglin 1993, <i>How to
 /// Detect and Handle Outliers</i>, ASQC). When the MAD is 0 the mean absolute deviation is used instead,
 /// M = (x − median) / (1.253314 · mean |x − median|) (from memory, the same authors' fallback); when that is 0 too
 /// nothing is flagged.</para>
@@ -43,6 +44,11 @@ public static class ArtefactFlags
 
     /// <summary>Modified z-score beyond which a channel's power is an outlier (Iglewicz &amp; Hoaglin 1993).</summary>
     public const double OutlierScore = 3.5;
+
+    /// <summary>Factor by which a flagged channel's power must also lie above or below the median power (a choice made
+    /// here: a channel carrying a genuine oscillation of the band is often 3 to 5 times the median, a bridged, noisy or
+    /// disconnected one an order of magnitude or more away).</summary>
+    public const double OutlierFactor = 10;
 
     private static readonly string[] ZeroLagSensitive = ["plv", "coherence"];
     private static readonly string[] LagInsensitive = ["wpli", "wpli-debiased", "pli", "imag-coherency"];
@@ -173,7 +179,8 @@ public static class ArtefactFlags
     }
 
     /// <summary>
-    /// Channels whose log10 power has a modified z-score beyond <see cref="OutlierScore"/> (see the type's remarks):
+    /// Channels whose log10 power has a modified z-score beyond <see cref="OutlierScore"/> and lies at least
+    /// <see cref="OutlierFactor"/> times away from the median (see the type's remarks):
     /// (channel index, score, power / median power). Non-positive or non-finite powers are left out of the statistics
     /// and never flagged.
     /// </summary>
@@ -198,7 +205,8 @@ public static class ArtefactFlags
         for (int i = 0; i < usable.Length; i++)
         {
             double score = (logs[i] - median) / scale;
-            if (Math.Abs(score) > OutlierScore) found.Add((usable[i], score, Math.Pow(10, logs[i] - median)));
+            if (Math.Abs(score) > OutlierScore && Math.Abs(logs[i] - median) >= Math.Log10(OutlierFactor))
+                found.Add((usable[i], score, Math.Pow(10, logs[i] - median)));
         }
         return found;
     }

@@ -23,7 +23,7 @@ namespace Coupling.Figures;
 /// </remarks>
 public static class OverviewFigure
 {
-    private const int LabelWidth = 150, Gap = 18, Header = 70, Footer = 64, Right = 24;
+    private const int LabelWidth = 150, Gap = 18, Header = 86, Footer = 64, Right = 24;
 
     /// <summary>Draws the overview of <paramref name="results"/> and returns it as PNG bytes.</summary>
     /// <exception cref="ArgumentException">No results, or a result with fewer than two channels.</exception>
@@ -66,6 +66,9 @@ public static class OverviewFigure
         canvas.DrawText("All conditions × bands × measures", LabelWidth, 26, SKTextAlign.Left, titleFont, ink);
         canvas.DrawText("Each square: channel × channel values, first channel top left. Dot: significant after correction. " +
                         "One colour scale per measure (below its column).", LabelWidth, 46, SKTextAlign.Left, smallFont, quiet);
+        var order = results[0].Channels;
+        if (order.Count <= 40)
+            canvas.DrawText($"Channel order: {string.Join(", ", order)}", LabelWidth, 62, SKTextAlign.Left, smallFont, quiet);
         for (int j = 0; j < columns.Length; j++)
             canvas.DrawText(columns[j], LabelWidth + j * (panel + Gap) + panel / 2f, Header - 8, SKTextAlign.Center, labelFont, ink);
 

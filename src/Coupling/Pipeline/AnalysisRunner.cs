@@ -36,7 +36,8 @@ public static class AnalysisRunner
 
         progress?.Report(new RunProgress("writing results", 0, 0));
         var written = ResultsWriter.Write(plan, input, analysis, new RunContext(started, clock.Elapsed, commandLine, workers), progress);
-        return new RunOutcome(written, analysis.Results, analysis.Conditions, analysis.Warnings, clock.Elapsed, analysis.Contrasts);
+        return new RunOutcome(written, analysis.Results, analysis.Conditions, analysis.Warnings, clock.Elapsed, analysis.Contrasts,
+            analysis.Signals, analysis.SurrogateExample);
     }
 
     /// <summary>Everything computed by a run, before it is written.</summary>
