@@ -71,6 +71,8 @@ public static class AnalysisRunner
                 return 0;
             });
 
+        SurrogateExample.CheckChannels(plan, input.Channels.Select(c => c.Label).ToArray());
+
         var warnings = new List<string>();
         int pairs = Measures.PairIndex.Count(input.Channels.Count);
         int needed = (int)Math.Ceiling(pairs / plan.Q) - 1;

@@ -41,6 +41,16 @@ public static class SurrogateExample
         return best;
     }
 
+    /// <summary>Checks, before the long steps of a run, that the plan's <c>surrogate_figure</c> names analysed channels.</summary>
+    /// <exception cref="InputException">A channel is not among <paramref name="channels"/>.</exception>
+    public static void CheckChannels(Plan plan, IReadOnlyList<string> channels)
+    {
+        ArgumentNullException.ThrowIfNull(plan);
+        if (plan.SurrogateFigure is not { } spec) return;
+        IndexOf(plan, channels, spec.ChannelA);
+        IndexOf(plan, channels, spec.ChannelB);
+    }
+
     /// <summary>
     /// Cuts the chosen edge's condition again, isolates its band and recomputes the draws with the seed the test used.
     /// </summary>
