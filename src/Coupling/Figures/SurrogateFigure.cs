@@ -6,10 +6,11 @@ namespace Coupling.Figures;
 
 /// <summary>Draws the surrogate distribution of one edge as a histogram with its observed value marked.</summary>
 /// <remarks>
-/// The bars count the surrogate values in equal bins over the range of the draws and the observed value (about
-/// sqrt(M) bins, at most 60: the square-root rule, common practice). A solid line marks the observed value; for a
-/// two-sided measure (test statistic |value|) a dashed line marks its mirror image, since draws beyond either line count
-/// as exceedances. The title names the edge and gives p and z.
+/// The bars count the surrogate values in equal bins over the range of the draws (about sqrt(M) bins, 5 to 60: the
+/// square-root rule, common practice). A solid line marks the observed value; for a two-sided measure (test statistic
+/// |value|) a dashed line marks its mirror image, since draws beyond either line count as exceedances. An observed
+/// value farther than half the draws' range beyond them is not drawn to scale (the histogram would shrink to a sliver);
+/// a note names it and its side instead. The title names the edge and gives p and z.
 /// </remarks>
 public static class SurrogateFigure
 {
@@ -25,14 +26,7 @@ public static class SurrogateFigure
         using var plot = FigureStyle.NewPlot();
 
         double observed = distribution.Observed;
-        var marks = new List<double>();
-        if (double.IsFinite(observed))
-        {
-            marks.Add(observed);
-            if (distribution.TwoSided && observed != 0) marks.Add(-observed);
-        }
-        double low = Math.Min(draws.Min(), marks.DefaultIfEmpty(double.PositiveInfinity).Min());
-        double high = Math.Max(draws.Max(), marks.DefaultIfEmpty(double.NegativeInfinity).Max());
+        double low = draws.Min(), high = draws.Max();
         if (!(high > low)) { low -= 0.5; high += 0.5; }
         int bins = Math.Clamp((int)Math.Ceiling(Math.Sqrt(draws.Length)), 5, 60);
         double size = (high - low) / bins;
@@ -48,16 +42,31 @@ public static class SurrogateFigure
         }).ToList();
         plot.Add.Bars(bars);
 
+        // The observed value is drawn where it lies when that keeps the histogram readable (within half the draws' range
+        // beyond them); farther out the axis keeps to the draws and a note says where the observed value is.
+        double reach = 0.5 * (high - low);
+        var marks = new List<(double X, bool Mirror)>();
         if (double.IsFinite(observed))
         {
-            var line = plot.Add.VerticalLine(observed, 3, Observed);
-            line.LegendText = string.Create(CultureInfo.InvariantCulture, $"observed {observed:G4}");
-            if (marks.Count == 2)
-            {
-                var mirror = plot.Add.VerticalLine(-observed, 2, Observed, LinePattern.Dashed);
-                mirror.LegendText = "mirror (two-sided test on |value|)";
-            }
-            plot.ShowLegend(Alignment.UpperLeft);
+            marks.Add((observed, false));
+            if (distribution.TwoSided && observed != 0) marks.Add((-observed, true));
+        }
+        var shown = marks.Where(m => m.X >= low - reach && m.X <= high + reach).ToList();
+        foreach (var (x, mirror) in shown)
+        {
+            var line = mirror ? plot.Add.VerticalLine(x, 2, Observed, LinePattern.Dashed) : plot.Add.VerticalLine(x, 3, Observed);
+            line.LegendText = mirror ? "mirror (two-sided test on |value|)"
+                : string.Create(CultureInfo.InvariantCulture, $"observed {observed:G4}");
+        }
+        if (shown.Count > 0) plot.ShowLegend(Alignment.UpperLeft);
+        if (double.IsFinite(observed) && !shown.Any(m => !m.Mirror))
+        {
+            string side = observed > high ? "right" : "left";
+            var note = plot.Add.Annotation(string.Create(CultureInfo.InvariantCulture,
+                $"observed {observed:G4}: far to the {side} of every draw (off this scale)"),
+                observed > high ? Alignment.UpperRight : Alignment.UpperLeft);
+            note.LabelFontColor = Observed;
+            note.LabelBorderColor = Observed;
         }
         plot.Axes.Margins(bottom: 0);
         plot.XLabel(distribution.Measure);

@@ -64,7 +64,8 @@ public static class MethodsText
         }
         var window = plan["window"];
         var steps = manifest.TimeSteps.Select(s => s.Samples).Distinct().ToArray();
-        string stepText = steps.Length == 1 ? $"every {steps[0]} sample{(steps[0] == 1 ? "" : "s")}" : "at a band-dependent step";
+        string stepText = steps.Length == 1 ? $"every {steps[0]} sample{(steps[0] == 1 ? "" : "s")}"
+            : $"every k samples (k = {string.Join(", ", manifest.TimeSteps.Select(t => $"{t.Samples} for {t.Band}"))})";
         var measures = (plan["measures"] as JsonArray ?? []).Select(m => m!.GetValue<string>()).ToArray();
         var named = measures.Select(m => $"{MeasureName(m)} ({Cite(m)})").ToArray();
         parts.Add(
