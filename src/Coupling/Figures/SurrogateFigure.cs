@@ -67,6 +67,8 @@ public static class SurrogateFigure
                 observed > high ? Alignment.UpperRight : Alignment.UpperLeft);
             note.LabelFontColor = Observed;
             note.LabelBorderColor = Observed;
+            note.LabelBackgroundColor = Colors.White;
+            note.LabelShadowColor = Colors.Transparent;
         }
         plot.Axes.Margins(bottom: 0);
         plot.XLabel(distribution.Measure);
