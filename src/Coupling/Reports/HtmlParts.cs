@@ -98,8 +98,7 @@ internal static class HtmlParts
         return records.Count == 0 ? ([], []) : (records[0], records.Skip(1).ToList());
     }
 
-    /// <summary>A table cell's text shortened for reading when it is a long number ("0.123456789" to "0.1235").</summary>
+    /// <summary>A table cell's text, shortened for reading when it is a long number ("0.123456789" to "0.1235").</summary>
     public static string Cell(string text) =>
-        text.Length > 8 && double.TryParse(text, NumberStyles.Float, Inv, out double v) && !text.Contains('E') && !text.Contains('e')
-            ? Num(v, "G4") : E(text);
+        text.Length > 8 && double.TryParse(text, NumberStyles.Float, Inv, out double v) ? Num(v, "G4") : E(text);
 }

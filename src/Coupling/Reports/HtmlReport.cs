@@ -328,7 +328,6 @@ public static class HtmlReport
         .warning{background:var(--warn);border-left:4px solid #b07d00}
         figure{margin:10px 0}
         figure img{display:block;max-width:100%;height:auto;border:1px solid var(--line);background:#fff}
-        figure.wide img{width:100%}
         figure.mid img{max-width:760px}
         figcaption{color:var(--muted);font-size:13px;margin-top:4px}
         .figs{display:grid;grid-template-columns:repeat(auto-fit,minmax(320px,1fr));gap:12px}
