@@ -167,12 +167,12 @@ public static class HtmlReport
                 sb.Append($"<h3>{E(FlagTitle(group.Key))} <span class=\"count\">{group.Count()}</span></h3>\n");
                 var rows = group.Select(f => (IReadOnlyList<string>)[E(f.Condition), E(f.Band),
                     E(f.ChannelB is null ? f.ChannelA : $"{f.ChannelA}–{f.ChannelB}"), E(f.Measures), E(f.Detail)]);
-                Table(sb, ["condition", "band", f0(group.Key), "measures", "detail"], rows, cssClass: "flags");
+                Table(sb, ["condition", "band", group.Key == ArtefactKind.PowerOutlier ? "channel" : "pair", "measures", "detail"], rows,
+                    cssClass: "flags");
             }
         }
         foreach (var note in c.UncheckedFlags) sb.Append($"<p class=\"quiet\">{E(note)}</p>\n");
         sb.Append("</section>\n");
-        static string f0(ArtefactKind k) => k == ArtefactKind.PowerOutlier ? "channel" : "pair";
     }
 
     private static string FlagTitle(ArtefactKind kind) => kind switch
@@ -240,7 +240,7 @@ public static class HtmlReport
                 return (IReadOnlyList<string>)[E(x.Channels[ia]), E(x.Channels[ib]), Num(x.ValueA[k], "0.####"), Num(x.ValueB[k], "0.####"),
                     Num(x.Difference[k], "0.####"), Num(x.Z[k], "0.0"), P(x.P[k]), P(x.PCorrected[k])];
             });
-            Table(sb, ["channel a", "channel b", E(x.ConditionA), E(x.ConditionB), "A − B", "z", "p", "corrected p"], rows,
+            Table(sb, ["channel a", "channel b", x.ConditionA, x.ConditionB, "A − B", "z", "p", "corrected p"], rows,
                 new HashSet<int> { 2, 3, 4, 5, 6, 7 });
             var images = ImagesStartingWith(figures, OutputNames.Stem(x.AsDifference()) + "_");
             if (images.Count > 0)
