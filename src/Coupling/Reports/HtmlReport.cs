@@ -10,7 +10,8 @@ namespace Coupling.Reports;
 
 /// <summary>
 /// Writes report.html: one self-contained page per run (styles inline, every figure embedded as a data URI, no script,
-/// no external resource) that opens offline in any browser.
+/// no external resource) that opens offline in any browser. Like every output but the manifest, it holds nothing about
+/// the run itself (no times): the same plan and data give the same bytes.
 /// </summary>
 /// <remarks>
 /// Order: the research-use caution and any warnings; the overview figure of every condition x band x measure; a count
@@ -60,7 +61,7 @@ public static class HtmlReport
         sb.Append($"<header><p class=\"kicker\">Connectivity report</p><h1>{E(recording)}</h1>")
           .Append($"<p class=\"sub\">{content.Channels.Count} channels · {a.Conditions.Count} condition{(a.Conditions.Count == 1 ? "" : "s")} · ")
           .Append($"{content.Plan.Bands.Count} band{(content.Plan.Bands.Count == 1 ? "" : "s")} · {content.Plan.Measures.Count} measure{(content.Plan.Measures.Count == 1 ? "" : "s")} · ")
-          .Append($"{E(content.Manifest.Tool.Name)} {E(content.Manifest.Tool.Version.Split('+')[0])} · {E(content.Manifest.Started.ToString("yyyy-MM-dd HH:mm 'UTC'", Inv))}</p></header>\n");
+          .Append($"{E(content.Manifest.Tool.Name)} {E(content.Manifest.Tool.Version.Split('+')[0])}</p></header>\n");
         sb.Append($"<aside class=\"caution\" id=\"caution\"><strong>Research use only.</strong> {E(ResearchUseNotice["Research use only. ".Length..])}</aside>\n");
         foreach (var w in a.Warnings) sb.Append($"<aside class=\"warning\"><strong>Warning.</strong> {E(w)}</aside>\n");
 
