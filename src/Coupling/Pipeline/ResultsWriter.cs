@@ -55,8 +55,11 @@ public static class ResultsWriter
             if (plan.Figures)
             {
                 MatrixFigure.Save(r, folder.PathOf($"figures/{stem}_matrix.png"));
-                NetworkFigure.Save(r, folder.PathOf($"figures/{stem}_network.png"));
                 written.Add($"figures/{stem}_matrix.png");
+            }
+            if (plan.Figures && plan.Surrogates > 0) // values only: no significant pairs to draw a network of
+            {
+                NetworkFigure.Save(r, folder.PathOf($"figures/{stem}_network.png"));
                 written.Add($"figures/{stem}_network.png");
             }
         }
@@ -79,9 +82,12 @@ public static class ResultsWriter
                     string stem = OutputNames.Stem(difference);
                     string label = $"{difference.Measure} difference";
                     MatrixFigure.Save(difference, folder.PathOf($"figures/contrasts/{stem}_matrix.png"), valueLabel: label);
-                    NetworkFigure.Save(difference, folder.PathOf($"figures/contrasts/{stem}_network.png"), valueLabel: label);
                     written.Add($"figures/contrasts/{stem}_matrix.png");
-                    written.Add($"figures/contrasts/{stem}_network.png");
+                    if (plan.Surrogates > 0)
+                    {
+                        NetworkFigure.Save(difference, folder.PathOf($"figures/contrasts/{stem}_network.png"), valueLabel: label);
+                        written.Add($"figures/contrasts/{stem}_network.png");
+                    }
                 }
             }
         }

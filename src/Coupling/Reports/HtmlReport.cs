@@ -119,7 +119,9 @@ public static class HtmlReport
         sb.Append($"<dt>Trial span</dt><dd>{Num(plan.Trial.Start, "0.###")} to {Num(plan.Trial.End, "0.###")} s around each onset</dd>");
         sb.Append($"<dt>Analysis window</dt><dd>{Num(plan.Window.Start, "0.###")} to {Num(plan.Window.End, "0.###")} s</dd>");
         sb.Append($"<dt>Evoked response</dt><dd>{(plan.SubtractEvoked ? "subtracted (each condition's trial mean, before band isolation)" : "kept")}</dd>");
-        sb.Append($"<dt>Significance</dt><dd>{plan.Surrogates} trial-shuffle surrogates (seed {plan.Seed}); Benjamini-Hochberg at q = {Num(plan.Q, "0.###")}</dd>");
+        sb.Append(plan.Surrogates == 0
+            ? "<dt>Significance</dt><dd>not tested (surrogates: 0, values only): p, z and corrected p are empty and no pair is significant</dd>"
+            : $"<dt>Significance</dt><dd>{plan.Surrogates} trial-shuffle surrogates (seed {plan.Seed}); Benjamini-Hochberg at q = {Num(plan.Q, "0.###")}</dd>");
         foreach (var note in c.InputNotes) sb.Append($"<dt>Note from reading</dt><dd>{E(note)}</dd>");
         sb.Append("</dl>\n<h3>Trials per condition</h3>\n");
         var rows = plan.Conditions.Zip(c.Analysis.Conditions).Select(p => (IReadOnlyList<string>)
@@ -190,6 +192,8 @@ public static class HtmlReport
         sb.Append("<section id=\"tables\"><h2>Significant pairs per table</h2>\n");
         sb.Append("<p>Per condition × band × measure, the pairs significant after correction, strongest |z| first. Lag: phase of the " +
                   "window-mean coherency as a time at the band centre, positive when the first channel leads; known only within half a period.</p>\n");
+        if (c.Plan.Surrogates == 0)
+            sb.Append("<p class=\"quiet\">Values only (surrogates: 0): no pair was tested, so none is listed; the figures and <code>edges.tsv</code> hold the values.</p>\n");
         string figures = Path.Combine(folder, "figures");
         foreach (var r in c.Analysis.Results)
         {
@@ -261,9 +265,9 @@ public static class HtmlReport
         string file = Path.Combine(folder, "figures", SurrogateFile);
         if (d is null)
         {
-            sb.Append(c.Plan.Figures
-                ? "<p class=\"quiet\">No pair is significant and the plan names no edge (<code>surrogate_figure</code>), so none is drawn.</p>\n"
-                : "<p class=\"quiet\">No figures were drawn (<code>figures: false</code> in the plan).</p>\n");
+            sb.Append(!c.Plan.Figures ? "<p class=\"quiet\">No figures were drawn (<code>figures: false</code> in the plan).</p>\n"
+                : c.Plan.Surrogates == 0 ? "<p class=\"quiet\">Values only (surrogates: 0): no surrogates were drawn.</p>\n"
+                : "<p class=\"quiet\">No pair is significant and the plan names no edge (<code>surrogate_figure</code>), so none is drawn.</p>\n");
         }
         else
         {

@@ -75,6 +75,13 @@ public static class MethodsText
             : "."));
         int surrogates = plan["surrogates"]?.GetValue<int>() ?? 0;
         double q = plan["q"]?.GetValue<double>() ?? 0.05;
+        if (surrogates == 0)
+        {
+            parts.Add("No significance test was made (values only).");
+            if (plan["contrasts"] is JsonArray { Count: > 0 } untested)
+                parts.Add($"Differences between conditions ({string.Join(", ", untested.Select(c => $"{c?["condition_a"]} vs {c?["condition_b"]}"))}) were computed without a test.");
+            return new Methods(string.Join(" ", parts), cited.Select(s => s.Reference).ToArray());
+        }
         parts.Add(
             $"Each value was tested against {surrogates} trial-shuffle surrogates, in which the trials of the second channel were put in a random order " +
             $"(one order per draw shared by all pairs and measures; seed {manifest.Seed}), with p = (b + 1)/(M + 1) ({Cite("permutation-p")}); " +

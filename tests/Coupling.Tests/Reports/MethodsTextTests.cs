@@ -73,6 +73,39 @@ public class MethodsTextTests
     }
 
     [Fact]
+    public void A_values_only_plan_says_no_test_was_made_and_cites_no_test()
+    {
+        var plan = PlanReader.Parse(new StringReader("""
+            recording: rec.edf
+            conditions: { go: [go], stop: [stop] }
+            contrasts: [[go, stop]]
+            trial: { start: -1, end: 2 }
+            window: { start: 0.25, end: 1.25 }
+            bands: { alpha: [8, 12] }
+            measures: [plv]
+            surrogates: 0
+            seed: 1
+            output: out
+            """), "/data/plan.yaml");
+        var manifest = new Manifest
+        {
+            Tool = new ToolInfo("coupling", "1.0.0", ".NET 10.0.0", "Linux", new Dictionary<string, string>()),
+            Started = DateTimeOffset.UnixEpoch,
+            Finished = DateTimeOffset.UnixEpoch,
+            Plan = JsonSerializer.SerializeToNode(plan, PlanJson),
+            Decompositions = [new DecompositionInfo("fir-hilbert", "alpha", new Dictionary<string, double> { ["filter_taps"] = 401 })],
+            Conditions = [new ConditionTrials("go", 20, []), new ConditionTrials("stop", 20, [])],
+            TimeSteps = [new BandTimeStep("alpha", 4, 0.016)],
+        };
+        var m = MethodsText.From(manifest);
+        Assert.Contains("No significance test was made (values only).", m.Paragraph);
+        Assert.Contains("Differences between conditions (go vs stop) were computed without a test.", m.Paragraph);
+        Assert.DoesNotContain("surrogates", m.Paragraph);
+        Assert.DoesNotContain(MethodSources.Of("fdr-bh").Reference, m.References);
+        Assert.DoesNotContain(MethodSources.Of("permutation-p").Reference, m.References);
+    }
+
+    [Fact]
     public void Every_measure_key_has_a_source_and_an_unknown_key_has_none()
     {
         foreach (var key in Coupling.Measures.MeasureCatalog.All.Select(Coupling.Measures.MeasureCatalog.Key))
