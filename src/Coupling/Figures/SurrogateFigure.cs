@@ -77,6 +77,6 @@ public static class SurrogateFigure
             $"{distribution.Condition} · {distribution.Band} · {distribution.Measure} · {distribution.ChannelA}–{distribution.ChannelB}\n" +
             $"{distribution.Draws.Length} trial-shuffle surrogates; p = {distribution.P:G3}, z = {distribution.Z:0.##}");
         plot.Title(title, FigureStyle.TitleSize(width));
-        FigureStyle.SavePng(plot, path, width, height);
+        FigureStyle.Save(plot, [path], width, height);
     }
 }
