@@ -71,6 +71,7 @@ public static class HtmlReport
         TableSections(sb, content, folder);
         ContrastSection(sb, content, folder);
         SurrogateSection(sb, content, folder);
+        ComponentSection(sb, content);
         GraphTables(sb, folder);
         MethodsSection(sb, content);
         FilesSection(sb, content);
@@ -93,7 +94,7 @@ public static class HtmlReport
         int total = results.Sum(r => r.Significant.Count(s => s));
         int pairs = results.Count == 0 ? 0 : results[0].Significant.Length;
         sb.Append($"<p>{results.Count} tables of {pairs} pairs each; {total} significant pairs in all after correction " +
-                  $"(false discovery rate q = {Num(c.Plan.Q, "0.###")} within each table). Counts per table, linked to its details:</p>\n");
+                  $"({E(Pipeline.CorrectionText.Describe(c.Plan.Correction, c.Plan.Q))}; family: {Pipeline.CorrectionText.ConditionFamily}). Counts per table, linked to its details:</p>\n");
         var measures = results.Select(r => r.Measure).Distinct().ToArray();
         var rows = results.Select(r => (r.Condition, r.Band)).Distinct().Select(key =>
         {
@@ -121,7 +122,7 @@ public static class HtmlReport
         sb.Append($"<dt>Evoked response</dt><dd>{(plan.SubtractEvoked ? "subtracted (each condition's trial mean, before band isolation)" : "kept")}</dd>");
         sb.Append(plan.Surrogates == 0
             ? "<dt>Significance</dt><dd>not tested (surrogates: 0, values only): p, z and corrected p are empty and no pair is significant</dd>"
-            : $"<dt>Significance</dt><dd>{plan.Surrogates} trial-shuffle surrogates (seed {plan.Seed}); Benjamini-Hochberg at q = {Num(plan.Q, "0.###")}</dd>");
+            : $"<dt>Significance</dt><dd>{plan.Surrogates} trial-shuffle surrogates (seed {plan.Seed}); {E(Pipeline.CorrectionText.Describe(plan.Correction, plan.Q))}; family: {Pipeline.CorrectionText.ConditionFamily}</dd>");
         foreach (var note in c.InputNotes) sb.Append($"<dt>Note from reading</dt><dd>{E(note)}</dd>");
         sb.Append("</dl>\n<h3>Trials per condition</h3>\n");
         var rows = plan.Conditions.Zip(c.Analysis.Conditions).Select(p => (IReadOnlyList<string>)
@@ -305,6 +306,19 @@ public static class HtmlReport
         sb.Append("<section id=\"methods\"><h2>Methods</h2>\n<p class=\"methods\">").Append(E(methods.Paragraph)).Append("</p>\n<h3>References</h3>\n<ol class=\"refs\">")
           .Append(string.Concat(methods.References.Select(r => $"<li>{E(r)}</li>"))).Append("</ol>\n")
           .Append("<p class=\"quiet\">Formulas and their sources in detail: docs/methods.md of the program. Every parameter is in <code>manifest.json</code>.</p></section>\n");
+    }
+
+    private static void ComponentSection(StringBuilder sb, ReportContent c)
+    {
+        if (!Pipeline.NetworkComponentsReport.Applies(c.Analysis)) return;
+        sb.Append("<section id=\"components\"><h2>Network components</h2>\n<p>Connected components of supra-threshold edges " +
+                  "(network-based statistic, Zalesky et al. 2010); the component number is the <code>component</code> column of the tables. " +
+                  "A significant component says that coupling differs from the null somewhere in it, not at each of its edges.</p>\n");
+        var rows = Pipeline.NetworkComponentsReport.Rows(c.Analysis);
+        if (rows.Count == 0) sb.Append("<p class=\"quiet\">No edge was above the threshold in any table.</p>\n");
+        else Table(sb, ["table", "component", "edges", "family-wise p", "channels"],
+            rows.Select(r => (IReadOnlyList<string>)r.Select(x => E(x)).ToArray()), new HashSet<int> { 1, 2, 3 });
+        sb.Append("</section>\n");
     }
 
     private static void FilesSection(StringBuilder sb, ReportContent c)

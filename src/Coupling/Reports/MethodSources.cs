@@ -25,6 +25,10 @@ public static class MethodSources
         ["morlet"] = new("Tallon-Baudry et al. 1996", "Tallon-Baudry C, Bertrand O, Delpuech C, Pernier J (1996). Stimulus specificity of phase-locked and non-phase-locked 40 Hz visual responses in human. J Neurosci 16:4240-4249."),
         ["permutation-p"] = new("Phipson & Smyth 2010", "Phipson B, Smyth GK (2010). Permutation p-values should never be zero: calculating exact p-values when permutations are randomly drawn. Stat Appl Genet Mol Biol 9:39."),
         ["fdr-bh"] = new("Benjamini & Hochberg 1995", "Benjamini Y, Hochberg Y (1995). Controlling the false discovery rate: a practical and powerful approach to multiple testing. J R Stat Soc B 57:289-300."),
+        ["benjamini-yekutieli"] = new("Benjamini & Yekutieli 2001", "Benjamini Y, Yekutieli D (2001). The control of the false discovery rate in multiple testing under dependency. Ann Stat 29:1165-1188."),
+        ["max-statistic"] = new("Nichols & Holmes 2002", "Nichols TE, Holmes AP (2002). Nonparametric permutation tests for functional neuroimaging: a primer with examples. Hum Brain Mapp 15:1-25."),
+        ["network-based"] = new("Zalesky et al. 2010", "Zalesky A, Fornito A, Bullmore ET (2010). Network-based statistic: identifying differences in brain networks. NeuroImage 53:1197-1207."),
+        ["pareto-tail"] = new("Knijnenburg et al. 2009", "Knijnenburg TA, Wessels LFA, Reinders MJT, Shmulevich I (2009). Fewer permutations, more accurate P-values. Bioinformatics 25:i161-i168."),
         ["label-permutation"] = new("Maris & Oostenveld 2007", "Maris E, Oostenveld R (2007). Nonparametric statistical testing of EEG- and MEG-data. J Neurosci Methods 164:177-190."),
         ["fisher-z"] = new("Fisher 1915", "Fisher RA (1915). Frequency distribution of the values of the correlation coefficient in samples from an indefinitely large population. Biometrika 10:507-521."),
     };
@@ -32,7 +36,7 @@ public static class MethodSources
     /// <summary>
     /// The source of <paramref name="key"/>: a measure key (<c>wpli-debiased</c> shares the wPLI paper, <c>aec-orth</c> the
     /// orthogonalization paper that also defines the plain AEC used here) or one of kaiser, hilbert, morlet,
-    /// permutation-p, fdr-bh, label-permutation, fisher-z.
+    /// permutation-p, fdr-bh, benjamini-yekutieli, max-statistic, network-based, pareto-tail, label-permutation, fisher-z.
     /// </summary>
     /// <exception cref="ArgumentException">No source is recorded for the key.</exception>
     public static Source Of(string key) => key switch

@@ -86,8 +86,7 @@ public static class MethodsText
             $"Each value was tested against {surrogates} trial-shuffle surrogates, in which the trials of the second channel were put in a random order " +
             $"(one order per draw shared by all pairs and measures; seed {manifest.Seed}), with p = (b + 1)/(M + 1) ({Cite("permutation-p")}); " +
             "imaginary coherency and the envelope correlations were tested two-sided on their absolute value, the other measures one-sided. " +
-            "p-values were corrected across the channel pairs of each condition, band and measure with the Benjamini-Hochberg procedure at a false " +
-            $"discovery rate of {N(q)} ({Cite("fdr-bh")}).");
+            Correction(manifest.Extra?["correction"], q, Cite));
         if (plan["contrasts"] is JsonArray { Count: > 0 } contrasts)
         {
             var names = contrasts.Select(c => $"{c?["condition_a"]} vs {c?["condition_b"]}");
@@ -95,6 +94,26 @@ public static class MethodsText
                       $"labels of the pooled trials keeping both group sizes, two-sided ({Cite("label-permutation")}), and corrected in the same way.");
         }
         return new Methods(string.Join(" ", parts), cited.Select(s => s.Reference).ToArray());
+    }
+
+    /// <summary>The sentence naming the correction across pairs recorded in the manifest (Benjamini-Hochberg when none is recorded).</summary>
+    private static string Correction(JsonNode? correction, double q, Func<string, string> cite)
+    {
+        string method = correction?["method"]?.GetValue<string>() ?? "benjamini-hochberg";
+        double level = correction?["q"]?.GetValue<double>() ?? correction?["alpha"]?.GetValue<double>() ?? q;
+        string l = level.ToString("0.###", CultureInfo.InvariantCulture);
+        string family = "the channel pairs of each condition, band and measure";
+        string text = method switch
+        {
+            "benjamini-yekutieli" => $"p-values were corrected across {family} with the Benjamini-Yekutieli procedure, valid under any dependence, at a false discovery rate of {l} ({cite("benjamini-yekutieli")}).",
+            "max-statistic" => $"Family-wise error across {family} was controlled at {l} by the distribution of the maximum over pairs of the studentised statistic in the same surrogate draws ({cite("max-statistic")}).",
+            "network-based" => $"Family-wise error across {family} was controlled at {l} on the extent of connected components of supra-threshold edges, with the null distribution of the largest component from the same surrogate draws ({cite("network-based")}).",
+            "none" => $"No correction across pairs was applied; each pair was tested at {l}.",
+            _ => $"p-values were corrected across {family} with the Benjamini-Hochberg procedure at a false discovery rate of {l} ({cite("fdr-bh")}).",
+        };
+        if (correction?["p_values"]?.GetValue<string>() is { } pv && pv.Contains("Pareto", StringComparison.Ordinal))
+            text += $" p-values in the far tail were refined by a generalised Pareto fit to the surrogate tail ({cite("pareto-tail")}).";
+        return text;
     }
 
     /// <summary>The measure's name as a methods section writes it.</summary>
