@@ -168,7 +168,7 @@ internal static class Commands
             foreach (var w in outcome.Warnings) output.WriteLine($"  warning: {w}");
             return;
         }
-        output.WriteLine($"  report:   {Path.Combine(outcome.OutputFolder, "report.md")}");
+        output.WriteLine($"  report:   {Path.Combine(outcome.OutputFolder, "report.html")}");
         output.WriteLine($"  edges:    {Path.Combine(outcome.OutputFolder, "edges.tsv")}");
         if (Directory.Exists(Path.Combine(outcome.OutputFolder, "figures")))
             output.WriteLine($"  figures:  {Path.Combine(outcome.OutputFolder, "figures")}");

@@ -77,7 +77,7 @@ public sealed class InputAnswersTests : IDisposable
         // Matrix figures show the values; there is no network of significant pairs to draw.
         Assert.NotEmpty(Directory.GetFiles(Path.Combine(folder, "figures"), "*_matrix.png"));
         Assert.Empty(Directory.GetFiles(Path.Combine(folder, "figures"), "*_network.png", SearchOption.AllDirectories));
-        Assert.Contains("not tested (surrogates: 0, values only)", File.ReadAllText(Path.Combine(folder, "report.md")));
+        Assert.Contains("not tested (surrogates: 0, values only)", System.Net.WebUtility.HtmlDecode(File.ReadAllText(Path.Combine(folder, "report.html"))));
     }
 
     [Fact]
@@ -159,7 +159,7 @@ public sealed class InputAnswersTests : IDisposable
         File.AppendAllText(plan, "truncated_recording: keep-complete-records\n");
         var outcome = AnalysisRunner.Run(PlanReader.Read(plan));
         string expected = $"Truncated file: {header.RecordCount - 3} of the {header.RecordCount} data records the header promises are complete and were kept";
-        Assert.Contains(expected, File.ReadAllText(Path.Combine(outcome.OutputFolder, "report.md")));
+        Assert.Contains(expected, System.Net.WebUtility.HtmlDecode(File.ReadAllText(Path.Combine(outcome.OutputFolder, "report.html"))));
         Assert.Contains(expected, File.ReadAllText(Path.Combine(outcome.OutputFolder, "manifest.json")));
     }
 
