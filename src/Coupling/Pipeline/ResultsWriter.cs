@@ -54,7 +54,7 @@ public static class ResultsWriter
             written.Add($"graphs/{stem}.graphml");
             if (plan.Figures)
             {
-                foreach (var (kind, save) in Figures(r, null))
+                foreach (var (kind, save) in Figures(r, null, plan.Surrogates > 0))
                 {
                     if (kind == "network" && plan.Surrogates == 0) continue; // values only: no significant pairs to draw a network of
                     string[] files = [$"figures/{stem}_{kind}.png", $"figures/{stem}_{kind}.svg"];
@@ -83,7 +83,7 @@ public static class ResultsWriter
                 {
                     string stem = OutputNames.Stem(difference);
                     string label = $"{difference.Measure} difference";
-                    foreach (var (kind, save) in Figures(difference, label))
+                    foreach (var (kind, save) in Figures(difference, label, plan.Surrogates > 0))
                     {
                         if (kind == "network" && plan.Surrogates == 0) continue;
                         string[] files = [$"figures/contrasts/{stem}_{kind}.png", $"figures/contrasts/{stem}_{kind}.svg"];
@@ -150,10 +150,9 @@ public static class ResultsWriter
         return folder.TargetPath;
     }
 
-    /// <summary>The figures of a result: name part and a writer taking the paths (PNG and SVG) to write.</summary>
-    private static (string Kind, Action<string[]> Save)[] Figures(PairResult r, string? label) =>
-    [
-        ("matrix", paths => MatrixFigure.Save(r, paths, valueLabel: label)),
-        ("network", paths => NetworkFigure.Save(r, paths, valueLabel: label)),
-    ];
+    /// <summary>The figures of a result: name part and a writer taking the paths (PNG and SVG) to write. Values without
+    /// a test (surrogates: 0) have no significant pairs to draw a network of, so they get the matrix only.</summary>
+    private static (string Kind, Action<string[]> Save)[] Figures(PairResult r, string? label, bool tested) => tested
+        ? [("matrix", paths => MatrixFigure.Save(r, paths, valueLabel: label)), ("network", paths => NetworkFigure.Save(r, paths, valueLabel: label))]
+        : [("matrix", paths => MatrixFigure.Save(r, paths, valueLabel: label))];
 }
