@@ -94,6 +94,12 @@ public static class ResultsWriter
             }
         }
 
+        if (analysis.Directions is not null)
+        {
+            DirectionTableWriter.Write(analysis.Directions, folder.PathOf("directions.tsv"));
+            written.Add("directions.tsv");
+        }
+
         var flags = ArtefactFlags.Find(analysis.Results, analysis.Signals ?? [], plan.SubtractEvoked);
         FlagTableWriter.Write(flags, folder.PathOf("flags.tsv"));
         written.Add("flags.tsv");
@@ -135,6 +141,7 @@ public static class ResultsWriter
                 ["threads"] = context.Threads,
                 ["analysis_seconds"] = context.Elapsed.TotalSeconds,
                 ["input_notes"] = new JsonArray(input.Notes.Select(n => (JsonNode)JsonValue.Create(n)!).ToArray()),
+                ["correction"] = CorrectionText.Manifest(plan.Correction, plan.Q),
                 ["warnings"] = new JsonArray(analysis.Warnings.Select(n => (JsonNode)JsonValue.Create(n)!).ToArray()),
             },
         };

@@ -44,7 +44,8 @@ public sealed class InputAnswersTests : IDisposable
     {
         string plan = TwoConditions(surrogates: 0);
         var valuesOnly = AnalysisRunner.Run(PlanReader.Read(plan));
-        File.WriteAllText(plan, File.ReadAllText(plan).Replace("surrogates: 0", "surrogates: 20").Replace("output: results", "output: tested"));
+        File.WriteAllText(plan, File.ReadAllText(plan).Replace("surrogates: 0", "surrogates: 20").Replace("output: results", "output: tested")
+            .Replace("figures: true", "figures: false"));
         var tested = AnalysisRunner.Run(PlanReader.Read(plan));
 
         Assert.Equal(tested.Results.Count, valuesOnly.Results.Count);
@@ -149,7 +150,8 @@ public sealed class InputAnswersTests : IDisposable
         var bytes = File.ReadAllBytes(edf)[..(int)keep];
         File.WriteAllBytes(edf, bytes);
         string plan = Path.Combine(_folder["sim"], "plan.yaml");
-        File.WriteAllText(plan, File.ReadAllText(plan).Replace("surrogates: 1000", "surrogates: 0").Replace("figures: true", "figures: false"));
+        File.WriteAllText(plan, File.ReadAllText(plan).Replace("surrogates: 1000", "surrogates: 0").Replace("figures: true", "figures: false")
+            .Replace("measures: [plv, ppc, pli, wpli, wpli-debiased, coherence, imag-coherency, aec, aec-orth]", "measures: [plv]"));
         var (code, _, err) = Cli("run", plan);
         Assert.Equal(2, code);
         Assert.Contains("truncated_recording: keep-complete-records", err);

@@ -68,7 +68,7 @@ public sealed class UnusableDataTests : IDisposable
     public void Too_few_channels_left_is_refused_naming_the_key()
     {
         var e = Assert.Throws<InputException>(() => Run(UnusableData.DropChannels, (c, s, v) => c >= 1 && s == 10 ? double.NaN : v));
-        Assert.Contains("plan.yaml, line 15: unusable_data: connectivity needs at least 2 channels, but only 1 remain", e.Message);
+        Assert.Contains("plan.yaml, line 15: unusable_data: connectivity needs at least 2 channels, but 1 remains", e.Message);
     }
 
     [Fact]
