@@ -106,11 +106,14 @@ public static class ResultsWriter
         if (plan.Figures && analysis.Results.Count > 0)
         {
             OverviewFigure.Save(analysis.Results, folder.PathOf($"figures/{HtmlReport.OverviewFile}"));
+            OverviewFigure.Save(analysis.Results, folder.PathOf($"figures/{Path.ChangeExtension(HtmlReport.OverviewFile, ".svg")}"));
             written.Add($"figures/{HtmlReport.OverviewFile}");
+            written.Add($"figures/{Path.ChangeExtension(HtmlReport.OverviewFile, ".svg")}");
             if (analysis.SurrogateExample is { } example)
             {
                 SurrogateFigure.Save(example, folder.PathOf($"figures/{HtmlReport.SurrogateFile}"));
                 written.Add($"figures/{HtmlReport.SurrogateFile}");
+                written.Add($"figures/{Path.ChangeExtension(HtmlReport.SurrogateFile, ".svg")}");
             }
         }
         written.Add("report.html");
