@@ -32,6 +32,7 @@ public static class AnalysisRunner
         var clock = Stopwatch.StartNew();
         int workers = threads > 0 ? threads : plan.Threads;
 
+        Outputs.OutputFolder.RemoveLeftovers(plan.Output);
         PlanInputs.CheckOutput(plan);
         var units = UnfinishedRun.Open(plan, restart);
         progress?.Report(new RunProgress("reading input", 0, 0));
@@ -44,7 +45,8 @@ public static class AnalysisRunner
         try { written = ResultsWriter.Write(plan, input, analysis, new RunContext(started, clock.Elapsed, commandLine, workers, units.Resumed), progress); }
         catch (Exception e) when (FileErrors.IsFileError(e) && e is not FileAccessException) { throw FileErrors.Writing(plan.Output, "results folder", e); }
         units.Remove();
-        return new RunOutcome(written, analysis.Results, analysis.Conditions, analysis.Warnings, clock.Elapsed, analysis.Contrasts, units.Resumed);
+        return new RunOutcome(written, analysis.Results, analysis.Conditions, analysis.Warnings, clock.Elapsed, analysis.Contrasts, units.Resumed,
+            analysis.Signals, analysis.SurrogateExample);
     }
 
     /// <summary>
@@ -69,12 +71,7 @@ public static class AnalysisRunner
         var trialCounts = new Dictionary<string, int>(StringComparer.Ordinal);
         foreach (var condition in plan.Conditions)
         {
-            foreach (var label in condition.EventLabels)
-                if (!input.EventLabels.Contains(label))
-                {
-                    var known = input.EventLabels.Distinct().Order(StringComparer.Ordinal).ToArray();
-                    throw new InputException($"{plan.Where($"conditions.{condition.Name}")}: event label '{label}' does not occur in {input.Source}{Plans.Spelling.Hint(label, known)}; labels there: {string.Join(", ", known)}.");
-                }
+            TrialChecks.CheckLabels(plan, condition, input);
             int count = InPlan(plan, "trial", () => input.TrialCount(condition, plan.Trial));
             TrialChecks.CheckCount(plan, condition, input.EventLabels.Count(condition.EventLabels.Contains), count, input.UnusableTrialCount(condition));
             if (plan.Surrogates > 0)
@@ -87,6 +84,8 @@ public static class AnalysisRunner
                 ConditionContrast.CheckFeasible(trialCounts[contrast.ConditionA], trialCounts[contrast.ConditionB], plan.Surrogates, contrast.Name);
                 return 0;
             });
+
+        SurrogateExample.CheckChannels(plan, input.Channels.Select(c => c.Label).ToArray());
 
         var warnings = new List<string>(BandWarnings.For(plan, decompositions, input.SampleRate, input.EpochSamples));
         int pairs = Measures.PairIndex.Count(input.Channels.Count);
@@ -114,6 +113,7 @@ public static class AnalysisRunner
         var results = new List<PairResult>();
         var directions = plan.Direction ? new List<PairDirection>() : null;
         var summaries = new List<ConditionSummary>();
+        var signals = new List<BandSignalSummary>();
         for (int ci = 0; ci < plan.Conditions.Count; ci++)
         {
             var trials = input.Trials(plan.Conditions[ci], plan.Trial, pad);
@@ -143,6 +143,7 @@ public static class AnalysisRunner
                 var matched = plan.MatchTrials > 0
                     ? TrialResampling.Matched(Narrowband(), plan.Measures, trialCounts.Values.Min(), plan.MatchTrials, Seeds.ForMatching(plan.Seed, ci, bi))
                     : null;
+                signals.Add(SignalSummaries.Summarise(Narrowband(), trials.Condition));
                 double[]? Slice(double[]? all, int k) => all?.AsSpan(k * pairs, pairs).ToArray();
                 for (int k = 0; k < tested.Count; k++)
                 {
@@ -157,7 +158,14 @@ public static class AnalysisRunner
             }
         }
         var contrasts = Contrast(plan, input, decompositions, steps, pad, progress, workers, cancellationToken, units);
-        return new Analysis(results, summaries, decompositions.Select(d => d.Info).ToArray(), steps, pad, warnings, contrasts, directions);
+        SurrogateDistribution? example = null;
+        if (plan.Figures && plan.Surrogates > 0 && SurrogateExample.Choose(plan, results) is var (r, pair, chosen))
+        {
+            int bi = plan.Bands.ToList().FindIndex(b => b.Name == results[r].Band);
+            progress?.Report(new RunProgress($"{results[r].Condition} / {results[r].Band}: surrogate draws of one edge", 0, 0));
+            example = SurrogateExample.Compute(plan, input, results[r], pair, chosen, decompositions[bi], steps[bi], pad, workers);
+        }
+        return new Analysis(results, summaries, decompositions.Select(d => d.Info).ToArray(), steps, pad, warnings, contrasts, directions, signals, example);
     }
 
     /// <summary>

@@ -86,6 +86,9 @@ public sealed record Plan
     /// <summary>Whether PNG figures are drawn.</summary>
     public bool Figures { get; init; } = true;
 
+    /// <summary>The edge whose surrogate distribution is drawn; null for the strongest significant edge.</summary>
+    public SurrogateFigureSpec? SurrogateFigure { get; init; }
+
     /// <summary>Worker threads for surrogate draws; 0 for all cores.</summary>
     public int Threads { get; init; }
 

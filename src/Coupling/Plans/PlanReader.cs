@@ -19,7 +19,7 @@ public static class PlanReader
     [
         "recording", "events", "channels", "sample_rate", "epochs", "conditions", "trial", "window", "evoked",
         "bands", "decomposition", "measures", "surrogates", "seed", "correction", "output", "figures", "threads",
-        "contrasts", "overwrite", "truncated_recording", "unusable_data", "intervals", "match_trials", "direction",
+        "contrasts", "overwrite", "truncated_recording", "unusable_data", "intervals", "match_trials", "direction", "surrogate_figure",
     ];
 
     /// <summary>Fewest surrogate draws the <c>surrogates</c> key allows (0: values without a test).</summary>
@@ -131,6 +131,7 @@ public static class PlanReader
         bool figures = !map.TryGetValue("figures", out var fi) || ctx.Bool(fi, "figures");
         bool overwrite = map.TryGetValue("overwrite", out var ow) && ctx.Bool(ow, "overwrite");
         int threads = map.TryGetValue("threads", out var th) ? ctx.Int(th, "threads", 0, 4096) : 0;
+        var surrogateFigure = map.TryGetValue("surrogate_figure", out var sf) ? ReadSurrogateFigure(ctx, sf, conditions, bands, measures) : null;
         bool keepComplete = map.TryGetValue("truncated_recording", out var tr)
             && ctx.Choice(tr, "truncated_recording", ["refuse", "keep-complete-records"]) == "keep-complete-records";
 
@@ -161,6 +162,7 @@ public static class PlanReader
             Figures = figures,
             Overwrite = overwrite,
             Threads = threads,
+            SurrogateFigure = surrogateFigure,
             KeepCompleteRecords = keepComplete,
             UnusableData = map.TryGetValue("unusable_data", out var ud) ? ctx.Choice(ud, "unusable_data", Pipeline.UnusableData.Policies) : Pipeline.UnusableData.Refuse,
             KeyLines = KeyLines(root),
@@ -180,6 +182,26 @@ public static class PlanReader
                     if (ik is YamlScalarNode { Value: { } name }) lines.TryAdd($"{key}.{name}", (int)ik.Start.Line);
         }
         return lines;
+    }
+
+    private static SurrogateFigureSpec ReadSurrogateFigure(Context ctx, YamlNode node, IReadOnlyList<ConditionSpec> conditions,
+        IReadOnlyList<Band> bands, IReadOnlyList<Measure> measures)
+    {
+        const string key = "surrogate_figure";
+        var m = ctx.Keys(node, key, ["condition", "band", "measure", "channels"]);
+        string condition = ctx.Scalar(ctx.Required(m, node, "condition", key), $"{key}.condition");
+        if (!conditions.Any(c => c.Name == condition))
+            throw ctx.Error(m["condition"], $"{key}.condition", $"'{condition}' is not a condition of the plan; conditions: {string.Join(", ", conditions.Select(c => c.Name))}");
+        string band = ctx.Scalar(ctx.Required(m, node, "band", key), $"{key}.band");
+        if (!bands.Any(b => b.Name == band))
+            throw ctx.Error(m["band"], $"{key}.band", $"'{band}' is not a band of the plan; bands: {string.Join(", ", bands.Select(b => b.Name))}");
+        string measure = ctx.Scalar(ctx.Required(m, node, "measure", key), $"{key}.measure");
+        if (!measures.Any(x => MeasureCatalog.Key(x) == measure))
+            throw ctx.Error(m["measure"], $"{key}.measure", $"'{measure}' is not a measure of the plan; measures: {string.Join(", ", measures.Select(MeasureCatalog.Key))}");
+        var channels = ctx.StringList(ctx.Required(m, node, "channels", key), $"{key}.channels", unique: true);
+        if (channels.Count != 2)
+            throw ctx.Error(m["channels"], $"{key}.channels", $"expected two channel labels, e.g. [C3, C4], got {channels.Count}");
+        return new SurrogateFigureSpec(condition, band, measure, channels[0], channels[1]);
     }
 
     private static IReadOnlyList<ContrastSpec> ReadContrasts(Context ctx, YamlNode node, IReadOnlyList<ConditionSpec> conditions)
@@ -404,7 +426,7 @@ public static class PlanReader
         {
             string v = Scalar(node, key);
             return allowed.Contains(v) ? v
-                : throw Error(node, key, $"'{v}' is not allowed{Spelling.Hint(v, allowed)}; use {string.Join(" or ", allowed.Select(a => $"'{a}'"))}");
+                : throw Error(node, key, $"'{v}' is not allowed{Spelling.Hint(v, allowed)}; use {string.Join(", ", allowed.SkipLast(1).Select(a => $"'{a}'"))} or '{allowed[^1]}'");
         }
 
         public bool Bool(YamlNode node, string key) => Scalar(node, key) switch
