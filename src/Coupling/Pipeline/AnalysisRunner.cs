@@ -72,15 +72,21 @@ public static class AnalysisRunner
 
         var warnings = new List<string>();
         int pairs = Measures.PairIndex.Count(input.Channels.Count);
-        int needed = (int)Math.Ceiling(pairs / plan.Q) - 1;
+        // Two-sided tests (signed measures, contrasts) double the smaller one-sided p, so their floor is 2/(M+1).
+        bool twoSided = plan.Contrasts.Count > 0 || plan.Measures.Any(m => MeasureCatalog.TailOf(m) == TestTail.TwoSided);
+        int floor = twoSided ? 2 : 1;
+        int needed = (int)Math.Ceiling(floor * pairs / plan.Q) - 1;
         if (plan.Surrogates < needed)
         {
-            int k = (int)Math.Ceiling(pairs / (plan.Q * (plan.Surrogates + 1)));
+            int k = (int)Math.Ceiling(floor * pairs / (plan.Q * (plan.Surrogates + 1)));
             string reach = k > pairs
                 ? $"no pair can pass the correction whatever the data (that would take {k} pairs at that p, and only {pairs} are tested)"
                 : $"a pair can pass the correction only if at least {k} pairs reach that p";
+            string smallest = twoSided
+                ? $"1/{plan.Surrogates + 1} one-sided and 2/{plan.Surrogates + 1} two-sided (signed measures, contrasts)"
+                : $"1/{plan.Surrogates + 1}";
             warnings.Add(string.Create(CultureInfo.InvariantCulture,
-                $"With {plan.Surrogates} surrogates the smallest attainable p is 1/{plan.Surrogates + 1}; across {pairs} pairs at q = {plan.Q:G3} {reach}. " +
+                $"With {plan.Surrogates} surrogates the smallest attainable p is {smallest}; across {pairs} pairs at q = {plan.Q:G3} {reach}. " +
                 $"Use at least {needed} surrogates for a single coupled pair to be detectable."));
         }
 
@@ -139,7 +145,7 @@ public static class AnalysisRunner
                 var stageProgress = progress is null ? null
                     : new Progress<int>(done => progress.Report(new RunProgress($"{stage}: label permutations", done, plan.Surrogates)));
                 var tested = ConditionContrast.Run(a, b, plan.Measures, plan.Surrogates, Seeds.ForContrast(plan.Seed, ki, bi), contrast.Name,
-                    workers > 0 ? workers : null, stageProgress, cancellationToken);
+                    plan.SubtractEvoked, workers > 0 ? workers : null, stageProgress, cancellationToken);
                 foreach (var m in tested)
                 {
                     var corrected = FalseDiscoveryRate.BenjaminiHochbergOfDefined(m.P);
@@ -152,12 +158,12 @@ public static class AnalysisRunner
         return results;
     }
 
-    private static TrialSet Cut(Plan plan, LoadedInput input, string condition, int pad)
-    {
-        var trials = input.Trials(plan.Conditions.First(c => c.Name == condition), plan.Trial, pad);
-        if (plan.SubtractEvoked) EvokedRemoval.SubtractInPlace(trials);
-        return trials;
-    }
+    /// <summary>
+    /// The trials of a condition as recorded: for a contrast the evoked response is removed inside the test, from each
+    /// group of every split (band isolation is linear, so removing it from the narrowband signals is the same).
+    /// </summary>
+    private static TrialSet Cut(Plan plan, LoadedInput input, string condition, int pad) =>
+        input.Trials(plan.Conditions.First(c => c.Name == condition), plan.Trial, pad);
 
     /// <summary>Runs a check whose message names no file, prefixing its InputException with the plan and the key it concerns.</summary>
     private static T InPlan<T>(Plan plan, string key, Func<T> check)

@@ -19,12 +19,12 @@ internal static class ChunkedDraws
     /// time per worker) and returns the values of every cell; workers are made by <paramref name="createWorker"/> as
     /// threads need them, after <paramref name="first"/> (if given) is used.
     /// </summary>
-    public static NullAccumulator Run<TWorker>(int draws, double[] observedStatistic, bool[] twoSided, TWorker? first,
+    public static NullAccumulator Run<TWorker>(int draws, double[] observed, TWorker? first,
         Func<TWorker> createWorker, Func<TWorker, int, double[]> draw, int? maxThreads, IProgress<int>? progress,
         CancellationToken cancellationToken)
         where TWorker : class
     {
-        int cells = observedStatistic.Length;
+        int cells = observed.Length;
         int chunks = (draws + DrawsPerChunk - 1) / DrawsPerChunk;
         var wave = new NullAccumulator[Math.Min(ChunksPerWave, chunks)];
         for (int i = 0; i < wave.Length; i++) wave[i] = new NullAccumulator(cells);
@@ -50,7 +50,7 @@ internal static class ChunkedDraws
                 accumulator.Reset();
                 int start = chunk * DrawsPerChunk, end = Math.Min(draws, start + DrawsPerChunk);
                 for (int d = start; d < end; d++)
-                    accumulator.Add(draw(worker, d), observedStatistic, twoSided);
+                    accumulator.Add(draw(worker, d), observed);
                 workers.Add(worker);
                 int finished = Interlocked.Add(ref done, end - start);
                 progress?.Report(finished);
