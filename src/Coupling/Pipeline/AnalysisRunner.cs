@@ -95,13 +95,20 @@ public static class AnalysisRunner
         for (int ci = 0; ci < plan.Conditions.Count; ci++)
         {
             var trials = input.Trials(plan.Conditions[ci], plan.Trial, pad);
+            var removedMean = plan.SubtractEvoked ? EvokedRemoval.Mean(trials) : null;
             if (plan.SubtractEvoked) EvokedRemoval.SubtractInPlace(trials);
             summaries.Add(new ConditionSummary(trials.Condition, trials.TrialCount, trials.DroppedTrials));
             for (int bi = 0; bi < decompositions.Length; bi++)
             {
                 string stage = $"{trials.Condition} / {plan.Bands[bi].Name}";
                 progress?.Report(new RunProgress($"{stage}: band isolation", 0, 0));
+                InPlan(plan, "window", () => { EdgeReach.Check(trials, decompositions[bi], plan.Window); return 0; });
                 var narrowband = NarrowbandExtractor.Extract(trials, decompositions[bi], plan.Window, steps[bi], workers);
+                var removedBand = removedMean is null ? null
+                    : NarrowbandExtractor.Extract(removedMean, decompositions[bi], plan.Window, steps[bi], workers);
+                if (EvokedShare.Warning(trials.Condition, plan.Bands[bi].Name, trials.Channels,
+                        EvokedShare.Compute(narrowband, removedBand)) is { } evokedWarning)
+                    warnings.Add(evokedWarning);
                 var stageProgress = progress is null ? null
                     : new Progress<int>(done => progress.Report(new RunProgress($"{stage}: surrogates", done, plan.Surrogates)));
                 var tested = SurrogateTest.Run(narrowband, plan.Measures, plan.Surrogates, Seeds.For(plan.Seed, ci, bi), trials.Condition,

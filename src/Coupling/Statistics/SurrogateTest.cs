@@ -8,7 +8,10 @@ namespace Coupling.Statistics;
 /// pair are put in a random order, which keeps each channel's own signal (including anything locked to the stimulus,
 /// which is the same in every trial) and destroys only the trial-by-trial correspondence between the two channels.
 /// Coupling that is merely a shared stimulus-locked response therefore survives the shuffle and is not significant;
-/// what is significant is coupling that goes beyond it, trial by trial.
+/// what is significant is coupling that goes beyond it, trial by trial. This holds only for a response that is the
+/// same in every trial: one whose latency or amplitude varies from trial to trial, shared by the channels, is itself
+/// trial-by-trial coupling and makes every measure significant (Truccolo et al. 2002, Clin Neurophysiol
+/// 113:206-226); see <see cref="EvokedShare"/>.
 /// </summary>
 /// <remarks>
 /// <para>Draw d (0..M−1) uses the trial order <see cref="TrialShuffle.Generate"/>(seed, d); one order serves all pairs
