@@ -10,9 +10,10 @@ namespace Coupling.Spectral;
 /// they reach.
 /// </summary>
 /// <remarks>
-/// A decomposition's output at sample i is computed from the input within its reach R = <see cref="IBandDecomposition.PadSamples"/>
-/// of i (the Morlet wavelet's half-support K; for the FIR route the filter length, which also covers the spread of the
-/// analytic-signal step). Window samples within R of a zero-filled sample are therefore filtered partly from zeros:
+/// A decomposition's output at sample i is computed from the input within its reach R of i (<see cref="ReachSamples"/>:
+/// the Morlet wavelet's half-support K, or the FIR filter's half-length c = (N − 1)/2; the FIR route's analytic-signal
+/// step adds a remainder beyond c that falls off like 2/(π d), about 2e-3 of the rms, see
+/// <see cref="FirHilbertDecomposition"/>). Window samples within R of a zero-filled sample are therefore filtered partly from zeros:
 /// their amplitude falls towards the data's end, which every channel shares, so envelope measures would see a common
 /// ramp. Padding with zeros rather than reflected data keeps time running one way (a reflected copy reverses it and
 /// flips the sign of any lag between channels), and refusing such windows keeps the zeros out of every value: the
@@ -22,6 +23,18 @@ namespace Coupling.Spectral;
 /// </remarks>
 public static class EdgeReach
 {
+    /// <summary>
+    /// R, in samples: the Morlet wavelet's half-support K, the FIR filter's half-length (N − 1)/2, or for any other
+    /// decomposition its <see cref="IBandDecomposition.PadSamples"/>.
+    /// </summary>
+    public static int ReachSamples(IBandDecomposition decomposition) => decomposition switch
+    {
+        null => throw new ArgumentNullException(nameof(decomposition)),
+        MorletDecomposition morlet => morlet.Wavelet.HalfLength,
+        FirHilbertDecomposition fir => fir.Filter.DelaySamples,
+        _ => decomposition.PadSamples,
+    };
+
     /// <summary>Window samples (at full rate) within reach of zero padding at the start and at the end of the trials.</summary>
     /// <param name="trials">The padded trials.</param>
     /// <param name="decomposition">The band's decomposition.</param>
@@ -31,7 +44,7 @@ public static class EdgeReach
         ArgumentNullException.ThrowIfNull(trials);
         ArgumentNullException.ThrowIfNull(decomposition);
         var samples = NarrowbandExtractor.WindowSamples(trials, window, 1);
-        int first = samples[0], last = samples[^1], reach = decomposition.PadSamples, count = samples.Length;
+        int first = samples[0], last = samples[^1], reach = ReachSamples(decomposition), count = samples.Length;
         int before = trials.ZerosBefore == 0 ? 0 : Math.Clamp(trials.ZerosBefore + reach - first, 0, count);
         int after = trials.ZerosAfter == 0 ? 0 : Math.Clamp(last - (trials.SampleCount - trials.ZerosAfter - reach) + 1, 0, count);
         return (before, after);
@@ -48,7 +61,7 @@ public static class EdgeReach
         var (before, after) = IntoWindow(trials, decomposition, window);
         if (before == 0 && after == 0) return;
         var inv = CultureInfo.InvariantCulture;
-        double rate = trials.SampleRate, reach = decomposition.PadSamples / rate;
+        double rate = trials.SampleRate, reach = ReachSamples(decomposition) / rate;
         var samples = NarrowbandExtractor.WindowSamples(trials, window, 1);
         double dataBefore = (samples[0] - trials.ZerosBefore) / rate;
         double dataAfter = (trials.SampleCount - trials.ZerosAfter - 1 - samples[^1]) / rate;

@@ -11,6 +11,10 @@ namespace Coupling.Tests.Pipeline;
 /// </summary>
 public sealed class SurrogateCountWarningTests
 {
+    // The study's shared 10 Hz source keeps nearly the same phase at every onset (onsets 15 cycles apart, slow phase
+    // drift), so its evoked share is high and the run warns about that too; only the surrogate-count warning is checked.
+    private static IEnumerable<string> CountWarnings(RunOutcome outcome) => outcome.Warnings.Where(w => w.Contains("surrogates"));
+
     private static RunOutcome RunWith(string folder, int surrogates)
     {
         string plan = Path.Combine(folder, "plan.yaml");
@@ -24,7 +28,7 @@ public sealed class SurrogateCountWarningTests
         using var folder = new TempFolder();
         SmallStudy.WriteRecording(folder.Path);
         var outcome = RunWith(folder.Path, surrogates: 10);
-        string warning = Assert.Single(outcome.Warnings);
+        string warning = Assert.Single(CountWarnings(outcome));
         Assert.Contains("smallest attainable p is 1/11 one-sided and 2/11 two-sided", warning);
         Assert.Contains("no pair can pass the correction", warning);
         Assert.Contains("at least 239 surrogates", warning);
@@ -38,7 +42,7 @@ public sealed class SurrogateCountWarningTests
         using var folder = new TempFolder();
         SmallStudy.WriteRecording(folder.Path);
         // M = 50: 2 x 6 / (0.05 x 51) = 4.7, so at least 5 pairs must reach p = 2/51.
-        string warning = Assert.Single(RunWith(folder.Path, surrogates: 50).Warnings);
+        string warning = Assert.Single(CountWarnings(RunWith(folder.Path, surrogates: 50)));
         Assert.Contains("only if at least 5 pairs reach that p", warning);
     }
 
@@ -47,6 +51,6 @@ public sealed class SurrogateCountWarningTests
     {
         using var folder = new TempFolder();
         SmallStudy.WriteRecording(folder.Path);
-        Assert.Empty(RunWith(folder.Path, surrogates: 239).Warnings);
+        Assert.Empty(CountWarnings(RunWith(folder.Path, surrogates: 239)));
     }
 }
