@@ -121,18 +121,20 @@ public static class AnalysisRunner
             {
                 string stage = $"{trials.Condition} / {plan.Bands[bi].Name}";
                 InPlan(plan, "window", () => { EdgeReach.Check(trials, decompositions[bi], plan.Window); return 0; });
+                // Band isolation runs even when a finished unit is taken from an interrupted run, so that the evoked-share
+                // warning is the same in a resumed run as in an uninterrupted one.
+                progress?.Report(new RunProgress($"{stage}: band isolation", 0, 0));
+                var narrowband = NarrowbandExtractor.Extract(trials, decompositions[bi], plan.Window, steps[bi], workers);
+                var removedBand = removedMean is null ? null
+                    : NarrowbandExtractor.Extract(removedMean, decompositions[bi], plan.Window, steps[bi], workers);
+                if (EvokedShare.Warning(trials.Condition, plan.Bands[bi].Name, trials.Channels,
+                        EvokedShare.Compute(narrowband, removedBand)) is { } evokedWarning)
+                {
+                    warnings.Add(evokedWarning);
+                    onWarning?.Invoke(evokedWarning);
+                }
                 IReadOnlyList<SurrogateResult> Compute()
                 {
-                    progress?.Report(new RunProgress($"{stage}: band isolation", 0, 0));
-                    var narrowband = NarrowbandExtractor.Extract(trials, decompositions[bi], plan.Window, steps[bi], workers);
-                    var removedBand = removedMean is null ? null
-                        : NarrowbandExtractor.Extract(removedMean, decompositions[bi], plan.Window, steps[bi], workers);
-                    if (EvokedShare.Warning(trials.Condition, plan.Bands[bi].Name, trials.Channels,
-                            EvokedShare.Compute(narrowband, removedBand)) is { } evokedWarning)
-                    {
-                        warnings.Add(evokedWarning);
-                        onWarning?.Invoke(evokedWarning);
-                    }
                     var stageProgress = progress is null ? null
                         : new Progress<int>(done => progress.Report(new RunProgress($"{stage}: surrogates", done, plan.Surrogates)));
                     return plan.Surrogates == 0 ? ValuesOnly.Compute(narrowband, plan.Measures)
