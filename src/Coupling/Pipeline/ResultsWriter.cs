@@ -1,10 +1,12 @@
 using System.Text.Json;
 using System.Text.Json.Nodes;
 using System.Text.Json.Serialization;
+using Coupling.Artefacts;
 using Coupling.Figures;
 using Coupling.Graphs;
 using Coupling.Outputs;
 using Coupling.Plans;
+using Coupling.Reports;
 using Coupling.Results;
 
 namespace Coupling.Pipeline;
@@ -13,7 +15,7 @@ namespace Coupling.Pipeline;
 /// <remarks>
 /// Everything is written into a temporary sibling folder that is renamed into place only when all of it is written
 /// (<see cref="OutputFolder"/>): a stopped or failed run leaves no partial results and keeps an older folder.
-/// Layout (docs/outputs.md): report.md, manifest.json, edges.tsv, nodes.tsv, matrices/, graphs/, figures/, and with
+/// Layout (docs/outputs.md): report.html, manifest.json, edges.tsv, nodes.tsv, graphs.tsv, flags.tsv, matrices/, graphs/, figures/, and with
 /// contrasts in the plan contrasts.tsv, matrices/contrasts/ and figures/contrasts/.
 /// </remarks>
 public static class ResultsWriter
@@ -52,18 +54,20 @@ public static class ResultsWriter
             written.Add($"graphs/{stem}.graphml");
             if (plan.Figures)
             {
-                MatrixFigure.Save(r, folder.PathOf($"figures/{stem}_matrix.png"));
-                written.Add($"figures/{stem}_matrix.png");
-            }
-            if (plan.Figures && plan.Surrogates > 0) // values only: no significant pairs to draw a network of
-            {
-                NetworkFigure.Save(r, folder.PathOf($"figures/{stem}_network.png"));
-                written.Add($"figures/{stem}_network.png");
+                foreach (var (kind, save) in Figures(r, null))
+                {
+                    if (kind == "network" && plan.Surrogates == 0) continue; // values only: no significant pairs to draw a network of
+                    string[] files = [$"figures/{stem}_{kind}.png", $"figures/{stem}_{kind}.svg"];
+                    save(files.Select(folder.PathOf).ToArray());
+                    written.AddRange(files);
+                }
             }
         }
         progress?.Report(new RunProgress("writing results", total, total));
         NodeTableWriter.Write(graphs, folder.PathOf("nodes.tsv"));
         written.Add("nodes.tsv");
+        GraphTableWriter.Write(graphs, folder.PathOf("graphs.tsv"));
+        written.Add("graphs.tsv");
 
         if (analysis.Contrasts.Count > 0)
         {
@@ -79,19 +83,37 @@ public static class ResultsWriter
                 {
                     string stem = OutputNames.Stem(difference);
                     string label = $"{difference.Measure} difference";
-                    MatrixFigure.Save(difference, folder.PathOf($"figures/contrasts/{stem}_matrix.png"), valueLabel: label);
-                    written.Add($"figures/contrasts/{stem}_matrix.png");
-                    if (plan.Surrogates > 0)
+                    foreach (var (kind, save) in Figures(difference, label))
                     {
-                        NetworkFigure.Save(difference, folder.PathOf($"figures/contrasts/{stem}_network.png"), valueLabel: label);
-                        written.Add($"figures/contrasts/{stem}_network.png");
+                        if (kind == "network" && plan.Surrogates == 0) continue;
+                        string[] files = [$"figures/contrasts/{stem}_{kind}.png", $"figures/contrasts/{stem}_{kind}.svg"];
+                        save(files.Select(folder.PathOf).ToArray());
+                        written.AddRange(files);
                     }
                 }
             }
         }
 
-        RunReport.Write(plan, input, analysis, graphs.Select(g => g.Item4).ToArray(), folder.PathOf("report.md"));
-        written.Add("report.md");
+        if (analysis.Directions is not null)
+        {
+            DirectionTableWriter.Write(analysis.Directions, folder.PathOf("directions.tsv"));
+            written.Add("directions.tsv");
+        }
+
+        var flags = ArtefactFlags.Find(analysis.Results, analysis.Signals ?? [], plan.SubtractEvoked);
+        FlagTableWriter.Write(flags, folder.PathOf("flags.tsv"));
+        written.Add("flags.tsv");
+        if (plan.Figures && analysis.Results.Count > 0)
+        {
+            OverviewFigure.Save(analysis.Results, folder.PathOf($"figures/{HtmlReport.OverviewFile}"));
+            written.Add($"figures/{HtmlReport.OverviewFile}");
+            if (analysis.SurrogateExample is { } example)
+            {
+                SurrogateFigure.Save(example, folder.PathOf($"figures/{HtmlReport.SurrogateFile}"));
+                written.Add($"figures/{HtmlReport.SurrogateFile}");
+            }
+        }
+        written.Add("report.html");
 
         var manifest = new Manifest
         {
@@ -116,11 +138,22 @@ public static class ResultsWriter
                 ["threads"] = context.Threads,
                 ["analysis_seconds"] = context.Elapsed.TotalSeconds,
                 ["input_notes"] = new JsonArray(input.Notes.Select(n => (JsonNode)JsonValue.Create(n)!).ToArray()),
+                ["correction"] = CorrectionText.Manifest(plan.Correction, plan.Q),
                 ["warnings"] = new JsonArray(analysis.Warnings.Select(n => (JsonNode)JsonValue.Create(n)!).ToArray()),
             },
         };
+        var report = new ReportContent(plan, manifest, analysis, input.Source, input.SampleRate, input.Channels.Select(c => c.Label).ToArray(),
+            input.Notes, flags, ArtefactFlags.Unchecked(plan.Measures.Select(Measures.MeasureCatalog.Key).ToArray(), plan.SubtractEvoked));
+        HtmlReport.Write(report, folder.WorkingPath, folder.PathOf("report.html"));
         ManifestWriter.Write(manifest, folder.PathOf("manifest.json"));
         folder.Commit();
         return folder.TargetPath;
     }
+
+    /// <summary>The figures of a result: name part and a writer taking the paths (PNG and SVG) to write.</summary>
+    private static (string Kind, Action<string[]> Save)[] Figures(PairResult r, string? label) =>
+    [
+        ("matrix", paths => MatrixFigure.Save(r, paths, valueLabel: label)),
+        ("network", paths => NetworkFigure.Save(r, paths, valueLabel: label)),
+    ];
 }

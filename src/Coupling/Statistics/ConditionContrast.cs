@@ -51,7 +51,7 @@ public static class ConditionContrast
     public static IReadOnlyList<ContrastResult> Run(NarrowbandSet a, NarrowbandSet b, IReadOnlyList<Measure> measures, int draws,
         ulong seed, string contrast, int? maxThreads = null, IProgress<int>? progress = null,
         CancellationToken cancellationToken = default) =>
-        Run(a, b, measures, draws, seed, contrast, subtractEvoked: false, maxThreads, progress, cancellationToken);
+        RunObserved(a, b, measures, draws, seed, contrast, maxThreads, progress, cancellationToken, null);
 
     /// <summary>
     /// Runs the test, optionally removing the evoked response inside every group: with
@@ -83,7 +83,16 @@ public static class ConditionContrast
     /// <exception cref="ArgumentException">The sets differ in channels or time points; no measures or a measure listed twice.</exception>
     public static IReadOnlyList<ContrastResult> Run(NarrowbandSet a, NarrowbandSet b, IReadOnlyList<Measure> measures, int draws,
         ulong seed, string contrast, bool subtractEvoked, int? maxThreads = null, IProgress<int>? progress = null,
-        CancellationToken cancellationToken = default)
+        CancellationToken cancellationToken = default) =>
+        RunObserved(a, b, measures, draws, seed, contrast, maxThreads, progress, cancellationToken, null, subtractEvoked);
+
+    /// <summary>
+    /// As the public <c>Run</c>, with <paramref name="observer"/> seeing every draw's differences (cells measure-major,
+    /// pairs in PairIndex order) and <paramref name="subtractEvoked"/> removing each group's trial mean inside every draw.
+    /// </summary>
+    internal static IReadOnlyList<ContrastResult> RunObserved(NarrowbandSet a, NarrowbandSet b, IReadOnlyList<Measure> measures, int draws,
+        ulong seed, string contrast, int? maxThreads, IProgress<int>? progress, CancellationToken cancellationToken,
+        IDrawObserver? observer, bool subtractEvoked = false)
     {
         ArgumentNullException.ThrowIfNull(a);
         ArgumentNullException.ThrowIfNull(b);
@@ -111,7 +120,7 @@ public static class ConditionContrast
         var total = ChunkedDraws.Run<SplitWorker>(draws, difference, null,
             () => new SplitWorker(pooled, countA, measures, subtractEvoked),
             (worker, d) => worker.Draw(seed, d),
-            maxThreads, progress, cancellationToken);
+            maxThreads, progress, cancellationToken, observer);
 
         var results = new ContrastResult[slots];
         for (int k = 0; k < slots; k++)
