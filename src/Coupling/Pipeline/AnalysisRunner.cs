@@ -117,6 +117,7 @@ public static class AnalysisRunner
         for (int ci = 0; ci < plan.Conditions.Count; ci++)
         {
             var trials = input.Trials(plan.Conditions[ci], plan.Trial, pad);
+            var removedMean = plan.SubtractEvoked ? EvokedRemoval.Mean(trials) : null;
             if (plan.SubtractEvoked) EvokedRemoval.SubtractInPlace(trials);
             summaries.Add(new ConditionSummary(trials.Condition, trials.TrialCount, trials.DroppedTrials));
             for (int bi = 0; bi < decompositions.Length; bi++)
@@ -128,6 +129,17 @@ public static class AnalysisRunner
                     if (extracted is not null) return extracted;
                     progress?.Report(new RunProgress($"{stage}: band isolation", 0, 0));
                     return extracted = NarrowbandExtractor.Extract(trials, decompositions[bi], plan.Window, steps[bi], workers);
+                }
+                InPlan(plan, "window", () => { EdgeReach.Check(trials, decompositions[bi], plan.Window); return 0; });
+                // Computed even when a finished unit is taken from an interrupted run, so that the evoked-share warning is
+                // the same in a resumed run as in an uninterrupted one.
+                var removedBand = removedMean is null ? null
+                    : NarrowbandExtractor.Extract(removedMean, decompositions[bi], plan.Window, steps[bi], workers);
+                if (EvokedShare.Warning(trials.Condition, plan.Bands[bi].Name, trials.Channels,
+                        EvokedShare.Compute(Narrowband(), removedBand)) is { } evokedWarning)
+                {
+                    warnings.Add(evokedWarning);
+                    onWarning?.Invoke(evokedWarning);
                 }
                 var stageProgress = progress is null ? null
                     : new Progress<int>(done => progress.Report(new RunProgress($"{stage}: surrogates", done, plan.Surrogates)));
@@ -208,14 +220,14 @@ public static class AnalysisRunner
                     var (a, b) = Narrowband();
                     return plan.Surrogates == 0 ? ValuesOnly.Compare(a, b, plan.Measures)
                         : ConditionContrast.Run(a, b, plan.Measures, plan.Surrogates, Seeds.ForContrast(plan.Seed, ki, bi), contrast.Name,
-                            workers > 0 ? workers : null, stageProgress, cancellationToken);
+                            plan.SubtractEvoked, workers > 0 ? workers : null, stageProgress, cancellationToken);
                 }
                 IReadOnlyList<(ContrastResult, FamilyOutcome)> tested;
                 if (draws)
                 {
                     var (a, b) = Narrowband();
                     tested = FamilyCorrection.TestContrast(a, b, plan.Measures, plan.Surrogates, Seeds.ForContrast(plan.Seed, ki, bi),
-                        contrast.Name, plan.Correction, plan.Q, workers > 0 ? workers : null, stageProgress, cancellationToken);
+                        contrast.Name, plan.Correction, plan.Q, workers > 0 ? workers : null, stageProgress, cancellationToken, plan.SubtractEvoked);
                 }
                 else
                     tested = (units?.Contrast(ki, bi, UnfinishedRun.ContrastUnit(contrast.Name, plan.Bands[bi].Name), Compute) ?? Compute())
@@ -229,10 +241,15 @@ public static class AnalysisRunner
         return results;
     }
 
+    /// <summary>
+    /// The trials of a condition for a contrast: as recorded when the contrast is tested, because the test removes the
+    /// evoked response inside, from each group of every split (band isolation is linear, so removing it from the
+    /// narrowband signals is the same); with the condition's own mean removed here when only values are computed.
+    /// </summary>
     private static TrialSet Cut(Plan plan, LoadedInput input, string condition, int pad)
     {
         var trials = input.Trials(plan.Conditions.First(c => c.Name == condition), plan.Trial, pad);
-        if (plan.SubtractEvoked) EvokedRemoval.SubtractInPlace(trials);
+        if (plan.SubtractEvoked && plan.Surrogates == 0) EvokedRemoval.SubtractInPlace(trials);
         return trials;
     }
 

@@ -20,12 +20,12 @@ internal static class ChunkedDraws
     /// threads need them, after <paramref name="first"/> (if given) is used. <paramref name="observer"/>, if given, sees
     /// every draw's values too.
     /// </summary>
-    public static NullAccumulator Run<TWorker>(int draws, double[] observedStatistic, bool[] twoSided, TWorker? first,
+    public static NullAccumulator Run<TWorker>(int draws, double[] observed, TWorker? first,
         Func<TWorker> createWorker, Func<TWorker, int, double[]> draw, int? maxThreads, IProgress<int>? progress,
         CancellationToken cancellationToken, IDrawObserver? observer = null)
         where TWorker : class
     {
-        int cells = observedStatistic.Length;
+        int cells = observed.Length;
         int chunks = (draws + DrawsPerChunk - 1) / DrawsPerChunk;
         var wave = new NullAccumulator[Math.Min(ChunksPerWave, chunks)];
         for (int i = 0; i < wave.Length; i++) wave[i] = new NullAccumulator(cells);
@@ -53,7 +53,7 @@ internal static class ChunkedDraws
                 for (int d = start; d < end; d++)
                 {
                     var values = draw(worker, d);
-                    accumulator.Add(values, observedStatistic, twoSided);
+                    accumulator.Add(values, observed);
                     observer?.Observe(d, values);
                 }
                 workers.Add(worker);
