@@ -18,6 +18,16 @@ namespace Coupling.TimeFrequency;
 /// </remarks>
 public static class MultitaperCells
 {
+    /// <summary>
+    /// The measures offered with multitaper: those that weigh each observation's cross-spectrum by its amplitude
+    /// (coherence, imaginary coherency, wPLI). Phase-only measures (PLV, PPC, PLI) would weigh every taper alike, and
+    /// the odd-order tapers carry almost none of a spectral line at the cell's frequency (their sum is zero), so their
+    /// phase is that of leakage; the debiased wPLI² assumes independent observations, which the tapers of one trial
+    /// are only approximately; the envelope correlations need time courses, and a cell has one coefficient per taper.
+    /// </summary>
+    public static readonly IReadOnlyList<Measures.Measure> Measures =
+        [Coupling.Measures.Measure.Coherence, Coupling.Measures.Measure.ImagCoherency, Coupling.Measures.Measure.Wpli];
+
     /// <summary>The band of a cell at <paramref name="frequency"/>: f ± W.</summary>
     public static Band BandOf(double frequency, double halfBandwidthHz) =>
         new(MorletCells.FrequencyName(frequency), frequency - halfBandwidthHz, frequency + halfBandwidthHz);
