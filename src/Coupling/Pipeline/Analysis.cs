@@ -18,4 +18,8 @@ public sealed record Analysis(
     IReadOnlyList<int> TimeSteps,
     int PadSamples,
     IReadOnlyList<string> Warnings,
-    IReadOnlyList<ContrastPairResult> Contrasts);
+    IReadOnlyList<ContrastPairResult> Contrasts)
+{
+    /// <summary>Frequency- and time-resolved results of the plan's <c>spectrum</c> key; null without it.</summary>
+    public SpectrumAnalysis? Spectrum { get; init; }
+}

@@ -110,7 +110,10 @@ public static class AnalysisRunner
             }
         }
         var contrasts = Contrast(plan, input, decompositions, steps, pad, progress, workers, cancellationToken);
-        return new Analysis(results, summaries, decompositions.Select(d => d.Info).ToArray(), steps, pad, warnings, contrasts);
+        return new Analysis(results, summaries, decompositions.Select(d => d.Info).ToArray(), steps, pad, warnings, contrasts)
+        {
+            Spectrum = SpectrumRunner.Analyse(plan, input, progress, workers, cancellationToken),
+        };
     }
 
     /// <summary>

@@ -84,6 +84,8 @@ public static class ResultsWriter
             }
         }
 
+        if (analysis.Spectrum is not null) written.AddRange(SpectrumWriter.Write(analysis.Spectrum, plan.Figures, folder.PathOf));
+
         RunReport.Write(plan, input, analysis, graphs.Select(g => g.Item4).ToArray(), folder.PathOf("report.md"));
         written.Add("report.md");
 
@@ -111,6 +113,7 @@ public static class ResultsWriter
                 ["warnings"] = new JsonArray(analysis.Warnings.Select(n => (JsonNode)JsonValue.Create(n)!).ToArray()),
             },
         };
+        if (analysis.Spectrum is not null) manifest.Extra!["spectrum"] = SpectrumWriter.ManifestNode(analysis.Spectrum);
         ManifestWriter.Write(manifest, folder.PathOf("manifest.json"));
         folder.Commit();
         return folder.TargetPath;

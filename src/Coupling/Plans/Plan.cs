@@ -68,4 +68,7 @@ public sealed record Plan
 
     /// <summary>Worker threads for surrogate draws; 0 for all cores.</summary>
     public int Threads { get; init; }
+
+    /// <summary>Frequency- and time-resolved connectivity of chosen pairs; null when the plan has no <c>spectrum</c> key.</summary>
+    public SpectrumSpec? Spectrum { get; init; }
 }

@@ -18,7 +18,7 @@ public static class PlanReader
     [
         "recording", "events", "channels", "sample_rate", "epochs", "conditions", "trial", "window", "evoked",
         "bands", "decomposition", "measures", "surrogates", "seed", "correction", "output", "figures", "threads",
-        "contrasts",
+        "contrasts", "spectrum",
     ];
 
     /// <summary>Reads the plan at <paramref name="path"/>; relative paths inside it are taken from the plan's folder.</summary>
@@ -108,6 +108,7 @@ public static class PlanReader
         string output = ctx.Path(ctx.Required(map, root, "output", "the plan"), "output");
         bool figures = !map.TryGetValue("figures", out var fi) || ctx.Bool(fi, "figures");
         int threads = map.TryGetValue("threads", out var th) ? ctx.Int(th, "threads", 0, 4096) : 0;
+        var spectrum = map.TryGetValue("spectrum", out var sp) ? SpectrumPlanReader.Read(ctx, sp, conditions, measures, trial, surrogates) : null;
 
         return new Plan
         {
@@ -131,6 +132,7 @@ public static class PlanReader
             Output = output,
             Figures = figures,
             Threads = threads,
+            Spectrum = spectrum,
         };
     }
 
@@ -267,7 +269,7 @@ public static class PlanReader
 
     private static string Fmt(double v) => v.ToString("G6", CultureInfo.InvariantCulture);
 
-    private sealed class Context(string source, string folder)
+    internal sealed class Context(string source, string folder)
     {
         public InputException Error(YamlNode node, string key, string what) =>
             new($"{source}, line {node.Start.Line}: {key}: {what}.");
