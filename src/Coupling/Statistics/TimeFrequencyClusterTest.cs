@@ -54,19 +54,19 @@ public static class TimeFrequencyClusterTest
 
         int cells = a.CellCount, nF = a.Frequencies.Count, nB = a.Bins.Count;
         var pooled = Enumerable.Range(0, cells).Select(i => Pool(a.Cell(i), b.Cell(i))).ToArray();
+        // Every labelling first (row 0 the observed one), then cell by cell through all of them, so that one thread holds
+        // the kernel workspaces of one cell only.
+        int total = a.TrialCount + b.TrialCount;
+        var orders = new int[draws + 1][];
+        orders[0] = Enumerable.Range(0, total).ToArray();
+        for (int d = 0; d < draws; d++) TrialShuffle.Generate(seed, d, orders[d + 1] = new int[total]);
         var maps = new double[(long)(draws + 1) * cells];
-        var identity = Enumerable.Range(0, a.TrialCount + b.TrialCount).ToArray();
-        new Splitter(pooled, a.TrialCount, a.ObservationsPerTrial, measure).Map(identity, maps.AsSpan(0, cells));
         var options = new ParallelOptions { MaxDegreeOfParallelism = maxThreads ?? -1, CancellationToken = cancellationToken };
-        Parallel.For(0, draws, options,
-            () => (Worker: new Splitter(pooled, a.TrialCount, a.ObservationsPerTrial, measure), Order: new int[identity.Length]),
-            (d, _, local) =>
-            {
-                TrialShuffle.Generate(seed, d, local.Order);
-                local.Worker.Map(local.Order, maps.AsSpan((d + 1) * cells, cells));
-                return local;
-            },
-            _ => { });
+        Parallel.For(0, cells, options, cell =>
+        {
+            var splitter = new Splitter(pooled[cell], a.TrialCount, a.ObservationsPerTrial, measure);
+            for (int r = 0; r <= draws; r++) maps[(long)r * cells + cell] = splitter.Difference(orders[r]);
+        });
 
         var z = Standardise(maps, cells, draws + 1);
         double zThreshold = Normal.InvCDF(0, 1, 1 - threshold / 2);
@@ -176,23 +176,23 @@ public static class TimeFrequencyClusterTest
         return new NarrowbandSet(a.Band, a.Channels, n, a.Times, data);
     }
 
-    /// <summary>One thread's buffers: per cell, the two groups' observations and kernel workspaces.</summary>
+    /// <summary>One cell's buffers: the two groups' observations and kernel workspaces.</summary>
     private sealed class Splitter
     {
-        private readonly NarrowbandSet[] _pooled;
+        private readonly NarrowbandSet _pooled;
         private readonly int _trialsA, _perTrial;
-        private readonly PairwiseWorkspace[] _a, _b;
+        private readonly PairwiseWorkspace _a, _b;
         private readonly int[] _identityA, _identityB;
         private readonly double[] _valueA = new double[1], _valueB = new double[1];
 
-        public Splitter(NarrowbandSet[] pooled, int trialsA, int perTrial, Measure measure)
+        public Splitter(NarrowbandSet pooled, int trialsA, int perTrial, Measure measure)
         {
             _pooled = pooled;
             _trialsA = trialsA;
             _perTrial = perTrial;
-            int observations = pooled[0].TrialCount, countA = trialsA * perTrial, countB = observations - countA;
-            _a = pooled.Select(p => Workspace(p, countA, measure)).ToArray();
-            _b = pooled.Select(p => Workspace(p, countB, measure)).ToArray();
+            int countA = trialsA * perTrial, countB = pooled.TrialCount - countA;
+            _a = Workspace(pooled, countA, measure);
+            _b = Workspace(pooled, countB, measure);
             _identityA = Enumerable.Range(0, countA).ToArray();
             _identityB = Enumerable.Range(0, countB).ToArray();
         }
@@ -201,33 +201,26 @@ public static class TimeFrequencyClusterTest
             new(new NarrowbandSet(shape.Band, shape.Channels, observations, shape.Times,
                 new Complex[(long)shape.TimeCount * shape.ChannelCount * observations]), [measure]);
 
-        /// <summary>Writes value in A minus value in B per cell, trial order[j] going to A for j &lt; N_A and to B after.</summary>
-        public void Map(ReadOnlySpan<int> order, Span<double> difference)
+        /// <summary>Value in A minus value in B, trial order[j] going to A for j &lt; N_A and to B after.</summary>
+        public double Difference(ReadOnlySpan<int> order)
         {
-            for (int cell = 0; cell < _pooled.Length; cell++)
+            var setA = _a.Set;
+            var setB = _b.Set;
+            int n = _pooled.TrialCount, na = setA.TrialCount, nb = setB.TrialCount, k = _perTrial;
+            int rows = _pooled.TimeCount * _pooled.ChannelCount;
+            for (int r = 0; r < rows; r++)
             {
-                var pooled = _pooled[cell];
-                var setA = _a[cell].Set;
-                var setB = _b[cell].Set;
-                int n = pooled.TrialCount, na = setA.TrialCount, nb = setB.TrialCount, k = _perTrial;
-                int rows = pooled.TimeCount * pooled.ChannelCount;
-                for (int r = 0; r < rows; r++)
-                {
-                    var source = pooled.Data.AsSpan(r * n, n);
-                    var targetA = setA.Data.AsSpan(r * na, na);
-                    var targetB = setB.Data.AsSpan(r * nb, nb);
-                    for (int j = 0; j < order.Length; j++)
-                    {
-                        var from = source.Slice(order[j] * k, k);
-                        from.CopyTo(j < _trialsA ? targetA.Slice(j * k, k) : targetB.Slice((j - _trialsA) * k, k));
-                    }
-                }
-                _a[cell].Reload();
-                _b[cell].Reload();
-                PairwiseKernels.Compute(_a[cell], _identityA, _valueA);
-                PairwiseKernels.Compute(_b[cell], _identityB, _valueB);
-                difference[cell] = _valueA[0] - _valueB[0];
+                var source = _pooled.Data.AsSpan(r * n, n);
+                var targetA = setA.Data.AsSpan(r * na, na);
+                var targetB = setB.Data.AsSpan(r * nb, nb);
+                for (int j = 0; j < order.Length; j++)
+                    source.Slice(order[j] * k, k).CopyTo(j < _trialsA ? targetA.Slice(j * k, k) : targetB.Slice((j - _trialsA) * k, k));
             }
+            _a.Reload();
+            _b.Reload();
+            PairwiseKernels.Compute(_a, _identityA, _valueA);
+            PairwiseKernels.Compute(_b, _identityB, _valueB);
+            return _valueA[0] - _valueB[0];
         }
     }
 }
