@@ -9,8 +9,8 @@ namespace Coupling.TimeFrequency;
 /// <param name="End">End, s; equal to <paramref name="Start"/> for a single time point.</param>
 public sealed record TimeBin(double Start, double End)
 {
-    /// <summary>Middle of the bin, s: the time a table or figure shows for it.</summary>
-    public double Centre => 0.5 * (Start + End);
+    /// <summary>Middle of the bin, s, rounded to 1e-9 s: the time a table or figure shows for it.</summary>
+    public double Centre => Math.Round(0.5 * (Start + End), 9);
 
     /// <summary>Whether the bin is one time point rather than a span.</summary>
     public bool IsPoint => End == Start;
@@ -25,12 +25,15 @@ public sealed record TimeBin(double Start, double End)
         if (!(step > 0)) throw new InputException($"time bins: step {step} s must be positive.");
         if (!(width >= 0)) throw new InputException($"time bins: width {width} s must not be negative.");
         var bins = new List<TimeBin>();
-        // Centres on the grid start + w/2 + i * step; 1e-9 s absorbs rounding of the decimal inputs.
+        // Centres on the grid start + w/2 + i * step, rounded to 1e-9 s so that decimal inputs give the times a reader
+        // expects (0.7, not 0.7000000000000001); 1e-9 s also absorbs that rounding at the span's end.
         for (int i = 0; ; i++)
         {
-            double centre = start + 0.5 * width + i * step;
+            double centre = Math.Round(start + 0.5 * width + i * step, 9);
             if (width > 0 ? centre + 0.5 * width > end + 1e-9 : centre >= end - 1e-9) break;
-            bins.Add(width > 0 ? new TimeBin(centre - 0.5 * width, centre + 0.5 * width) : new TimeBin(centre, centre));
+            bins.Add(width > 0
+                ? new TimeBin(Math.Round(centre - 0.5 * width, 9), Math.Round(centre + 0.5 * width, 9))
+                : new TimeBin(centre, centre));
         }
         if (bins.Count == 0)
             throw new InputException($"time bins: no bin of width {width} s fits between {start} s and {end} s.");

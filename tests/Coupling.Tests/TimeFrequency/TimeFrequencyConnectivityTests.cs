@@ -16,6 +16,9 @@ public class TimeFrequencyConnectivityTests
         Assert.Equal(9, bins.Count);
         Assert.Equal(-0.4, bins[0].Centre, 1e-12);
         Assert.Equal(0.4, bins[^1].Centre, 1e-12);
+        // Rounded to 1e-9 s: exactly the decimals a reader expects (0.6 + 0.8 alone would give 0.7000000000000001).
+        Assert.Equal(0.0, bins[5].Start);
+        Assert.Equal(0.7, TimeBin.Sliding(0, 1, 0.2, 0.1)[6].Centre);
         var points = TimeBin.Sliding(0, 0.05, 0, 0.01);
         Assert.Equal(5, points.Count);
         Assert.True(points.All(p => p.IsPoint));
