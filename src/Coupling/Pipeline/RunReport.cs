@@ -100,6 +100,8 @@ public static class RunReport
             sb.AppendLine();
         }
 
+        if (analysis.Spectrum is not null) SpectrumReport.Append(sb, analysis.Spectrum);
+
         sb.AppendLine("## Reading these results");
         sb.AppendLine();
         sb.AppendLine("- plv, ppc and coherence also respond to volume conduction (one source seen by two channels at zero lag); " +

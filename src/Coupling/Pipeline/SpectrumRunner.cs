@@ -76,9 +76,10 @@ public static class SpectrumRunner
             var bins = timeBins ?? windowBins;
             var a = Build(spec, SelectChannels(Cut(plan, input, plan.Conditions.First(c => c.Name == test.ConditionA), pad), two), bins, workers);
             var b = Build(spec, SelectChannels(Cut(plan, input, plan.Conditions.First(c => c.Name == test.ConditionB), pad), two), bins, workers);
-            progress?.Report(new RunProgress($"{test.ConditionA} vs {test.ConditionB}: cluster test", 0, test.Draws));
+            string stage = $"{test.ConditionA} vs {test.ConditionB}: cluster test, cells through {test.Draws} permutations";
+            var cellProgress = progress is null ? null : new Progress<int>(done => progress.Report(new RunProgress(stage, done, a.CellCount)));
             cluster = InPlan(plan, "spectrum.cluster_test", () => TimeFrequencyClusterTest.Run(a, b, test.Measure, test.ConditionA,
-                test.ConditionB, test.Draws, clusterSeed, test.Threshold, workers > 0 ? workers : null, cancellationToken));
+                test.ConditionB, test.Draws, clusterSeed, test.Threshold, workers > 0 ? workers : null, cancellationToken, cellProgress));
         }
         return new SpectrumAnalysis(spec, spectrum, course, cluster, new ChannelPairSpec(labels[figurePair.A], labels[figurePair.B]),
             pad, spec.Method == "multitaper" ? tapers : null, clusterSeed);

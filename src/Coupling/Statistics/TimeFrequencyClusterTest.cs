@@ -40,10 +40,12 @@ public static class TimeFrequencyClusterTest
     /// <param name="threshold">Two-sided pointwise level of the cluster-forming threshold, 0 &lt; alpha &lt; 1 (e.g. 0.05).</param>
     /// <param name="maxThreads">Upper bound on worker threads; null for every core.</param>
     /// <param name="cancellationToken">Stops the draws.</param>
+    /// <param name="progress">Told the number of cells finished (through every labelling), from the worker threads.</param>
     /// <exception cref="InputException">Too few trials for the draws asked, or a threshold out of range.</exception>
     /// <exception cref="ArgumentException">The cells of A and B do not match, or do not hold two channels.</exception>
     public static ClusterTestResult Run(TimeFrequencyCells a, TimeFrequencyCells b, Measure measure, string conditionA,
-        string conditionB, int draws, ulong seed, double threshold, int? maxThreads = null, CancellationToken cancellationToken = default)
+        string conditionB, int draws, ulong seed, double threshold, int? maxThreads = null, CancellationToken cancellationToken = default,
+        IProgress<int>? progress = null)
     {
         ArgumentNullException.ThrowIfNull(a);
         ArgumentNullException.ThrowIfNull(b);
@@ -62,10 +64,12 @@ public static class TimeFrequencyClusterTest
         for (int d = 0; d < draws; d++) TrialShuffle.Generate(seed, d, orders[d + 1] = new int[total]);
         var maps = new double[(long)(draws + 1) * cells];
         var options = new ParallelOptions { MaxDegreeOfParallelism = maxThreads ?? -1, CancellationToken = cancellationToken };
+        int finished = 0;
         Parallel.For(0, cells, options, cell =>
         {
             var splitter = new Splitter(pooled[cell], a.TrialCount, a.ObservationsPerTrial, measure);
             for (int r = 0; r <= draws; r++) maps[(long)r * cells + cell] = splitter.Difference(orders[r]);
+            progress?.Report(Interlocked.Increment(ref finished));
         });
 
         var z = Standardise(maps, cells, draws + 1);

@@ -80,6 +80,10 @@ public class SpectrumRunTests
         })
             Assert.Equal((900, 600), PngHeader.Read(Out(png)));
 
+        string report = File.ReadAllText(Out("report.md"));
+        Assert.Contains("## Spectra and time-frequency maps", report);
+        Assert.Contains("Cluster test, A-B plv, go (12 trials) − stay (12 trials): 19 label permutations", report);
+
         using var manifest = JsonDocument.Parse(File.ReadAllText(Out("manifest.json")));
         var node = manifest.RootElement.GetProperty("extra").GetProperty("spectrum");
         Assert.Equal("morlet", node.GetProperty("method").GetString());
