@@ -9,14 +9,17 @@ namespace Coupling.Cli;
 /// <summary>The actions behind the commands: each calls the library and prints through the given writers.</summary>
 internal static class Commands
 {
-    public static int Demo(string folder, int? surrogates, int threads, TextWriter output, TextWriter error)
+    public static int Demo(string folder, int? surrogates, int threads, bool force, Verbosity verbosity, TextWriter output, TextWriter error)
     {
-        output.WriteLine($"Simulating the demo scenario into {folder} ...");
+        if (surrogates is { } n && (n < PlanReader.MinSurrogates || n > PlanReader.MaxSurrogates))
+            throw new InputException($"--surrogates: {n} is not a whole number from {PlanReader.MinSurrogates} to {PlanReader.MaxSurrogates} (0: values without a test).");
+        ScenarioFolder.Check(folder, force);
+        if (verbosity != Verbosity.Quiet) output.WriteLine($"Simulating the demo scenario into {folder} ...");
         var paths = ScenarioFiles.Write(folder, new ScenarioOptions { Seed = ScenarioFiles.DefaultSeed },
             surrogates ?? ScenarioFiles.DefaultSurrogates);
-        var plan = PlanReader.Read(paths.Plan);
-        var outcome = Execute(plan, threads, $"coupling demo --output {folder}", error);
-        PrintOutcome(outcome, output);
+        var plan = PlanReader.Read(paths.Plan) with { Overwrite = force };
+        var outcome = Execute(plan, threads, $"coupling demo --output {folder}", error, restart: false, verbosity);
+        PrintOutcome(outcome, plan, verbosity, output);
 
         var truth = TruthFile.Read(paths.Truth);
         var lines = TruthCheck.Compare(truth, outcome.Results).Concat(TruthCheck.CompareContrasts(truth, outcome.Contrasts)).ToArray();
@@ -41,16 +44,27 @@ internal static class Commands
         return 0;
     }
 
-    public static int RunPlan(string planPath, int threads, TextWriter output, TextWriter error)
+    public static int RunPlan(PlanOverrides options, int threads, bool restart, Verbosity verbosity, TextWriter output, TextWriter error)
     {
-        var plan = PlanReader.Read(planPath);
-        var outcome = Execute(plan, threads, $"coupling run {planPath}", error);
-        PrintOutcome(outcome, output);
+        var plan = options.Read();
+        if (verbosity == Verbosity.Verbose && !restart) PrintPreview(PlanCheck.Preview(plan), plan, output);
+        var outcome = Execute(plan, threads, $"coupling run {options.PlanPath}", error, restart, verbosity);
+        PrintOutcome(outcome, plan, verbosity, output);
         return 0;
     }
 
-    public static int Simulate(string folder, int seed, int? trials, TextWriter output)
+    public static int Check(PlanOverrides options, TextWriter output)
     {
+        var plan = options.Read();
+        PrintPreview(PlanCheck.Preview(plan), plan, output);
+        output.WriteLine("The plan is valid; nothing was computed or written.");
+        return 0;
+    }
+
+    public static int Simulate(string folder, int seed, int? trials, bool force, TextWriter output)
+    {
+        if (trials is < 2) throw new InputException($"--trials: {trials} is too few; expected at least 2 trials per condition.");
+        ScenarioFolder.Check(folder, force);
         var options = new ScenarioOptions { Seed = seed };
         if (trials is { } n) options = options with { TrialsPerCondition = n };
         var paths = ScenarioFiles.Write(folder, options);
@@ -63,44 +77,97 @@ internal static class Commands
     public static int Inspect(string file, double? rate, TextWriter output)
     {
         if (!File.Exists(file)) throw new InputException($"{file}: file not found.");
+        if (rate is { } r && !(r > 0 && double.IsFinite(r))) throw new InputException($"--rate: {r} is not a positive number of Hz.");
         string ext = Path.GetExtension(file).ToLowerInvariant();
-        RecordingSummary summary = ext switch
+        RecordingSummary? summary = ext switch
         {
             ".edf" => RecordingSummary.Describe(EdfReader.ReadHeader(file), EdfReader.ReadEvents(file))
                 .WithSidecars(RecordingSidecars.FindBesides(file)),
-            ".csv" => RecordingSummary.Describe(CsvRecording.Read(file, rate ?? throw new InputException($"{file}: a CSV file carries no sampling rate; give --rate in Hz.")), "CSV"),
-            ".npy" => throw new InputException($"{file}: an NPY array holds no channel names or rate; use it through a plan with 'epochs' and 'sample_rate'. Its shape: ({string.Join(", ", NpyArray.Read(file).Shape)})."),
+            ".csv" => RecordingSummary.Describe(CsvRecording.Read(file, rate ?? throw new InputException($"{file}: a CSV file carries no sampling rate; give --rate in Hz.")), "CSV")
+                .WithSidecars(RecordingSidecars.FindBesides(file)),
+            ".npy" => null,
             _ => throw new InputException($"{file}: unknown extension '{ext}'; expected .edf, .csv or .npy."),
         };
+        if (summary is null)
+        {
+            var (shape, dtype, fortran) = NpyArray.ReadHeader(file);
+            output.WriteLine($"file: {file}");
+            output.WriteLine($"format: NPY array, dtype {dtype}, {(fortran ? "Fortran" : "C")} order");
+            output.WriteLine($"shape: ({string.Join(", ", shape)})");
+            output.WriteLine(shape.Count == 3
+                ? $"as epochs: {shape[0]} trials x {shape[1]} channels x {shape[2]} samples; analyse it through a plan with 'sample_rate' and 'epochs' (first_sample_time, labels, channel_labels)."
+                : $"an epochs array needs 3 dimensions (trials x channels x samples); this one has {shape.Count}.");
+            return 0;
+        }
         foreach (var line in summary.Format()) output.WriteLine(line);
         return 0;
     }
 
-    private static RunOutcome Execute(Plan plan, int threads, string commandLine, TextWriter error)
+    private static RunOutcome Execute(Plan plan, int threads, string commandLine, TextWriter error, bool restart, Verbosity verbosity)
     {
-        var progress = new TerminalProgress(error, ReferenceEquals(error, Console.Error) && !Console.IsErrorRedirected);
         using var stop = new CancellationTokenSource();
         ConsoleCancelEventHandler onCancel = (_, e) => { e.Cancel = true; stop.Cancel(); };
         Console.CancelKeyPress += onCancel;
-        try { return AnalysisRunner.Run(plan, progress, threads, commandLine, stop.Token); }
+        try
+        {
+            // Warnings arrive once the input is checked, before the long computation; --quiet leaves them for the summary.
+            if (verbosity == Verbosity.Quiet)
+                return AnalysisRunner.Run(plan, null, threads, commandLine, stop.Token, restart);
+            void Warn(string warning) => error.WriteLine($"coupling: warning: {warning}");
+            bool terminal = ReferenceEquals(error, Console.Error) && !Console.IsErrorRedirected;
+            return terminal
+                ? BarProgress.Show(error, bars => AnalysisRunner.Run(plan, bars, threads, commandLine, stop.Token, restart,
+                    w => bars.WriteLine($"coupling: warning: {w}")))
+                : AnalysisRunner.Run(plan, new PlainProgress(error, verbosity == Verbosity.Verbose), threads, commandLine, stop.Token, restart, Warn);
+        }
         finally
         {
             Console.CancelKeyPress -= onCancel;
-            progress.End();
         }
     }
 
-    private static void PrintOutcome(RunOutcome outcome, TextWriter output)
+    private static void PrintPreview(PlanPreview p, Plan plan, TextWriter output)
+    {
+        var inv = CultureInfo.InvariantCulture;
+        output.WriteLine($"Plan: {p.Plan}");
+        output.WriteLine(string.Create(inv, $"Recording: {p.Recording}, {p.SampleRate:G6} Hz, {p.Channels.Count} channels ({string.Join(", ", p.Channels)}), {p.Pairs} pairs"));
+        output.WriteLine("Trials per condition:");
+        foreach (var c in p.Conditions) output.WriteLine($"  {c.Condition}: {c.Trials}");
+        output.WriteLine("Bands:");
+        foreach (var b in p.Bands)
+        {
+            string kernel = b.Method == "morlet" ? "wavelet support" : "filter";
+            output.WriteLine(string.Create(inv,
+                $"  {b.Band}: {b.Method}, {kernel} {b.KernelSamples} samples ({b.KernelSeconds:G4} s), padding {b.PadSamples} samples per trial end, time step {b.TimeStep} samples"));
+        }
+        output.WriteLine($"Work units: {p.WorkUnits.Count} ({plan.Conditions.Count} condition(s) x {plan.Bands.Count} band(s)" +
+            (plan.Contrasts.Count > 0 ? $", {plan.Contrasts.Count} contrast(s) x {plan.Bands.Count} band(s)" : "") + $"), {p.Surrogates} surrogates each");
+        foreach (var u in p.WorkUnits) output.WriteLine($"  {u}{(p.KeptUnits.Contains(u) ? "   (kept by an interrupted run: loaded, not computed)" : "")}");
+        string verdict = p.Surrogates < p.SurrogatesForOneDiscovery ? " (too few for a lone coupled pair to pass the correction)." : ".";
+        output.WriteLine(string.Create(inv,
+            $"Surrogates needed for a single discovery among {p.Pairs} pairs at q = {plan.Q:G3}: at least {p.SurrogatesForOneDiscovery}; the plan has {p.Surrogates}{verdict}"));
+        output.WriteLine($"Output: {p.Output}{(Directory.Exists(p.Output) ? " (earlier results, to be replaced)" : "")}");
+    }
+
+    private static void PrintOutcome(RunOutcome outcome, Plan plan, Verbosity verbosity, TextWriter output)
     {
         output.WriteLine($"Results: {outcome.OutputFolder}");
+        if (verbosity == Verbosity.Quiet)
+        {
+            foreach (var w in outcome.Warnings) output.WriteLine($"  warning: {w}");
+            return;
+        }
         output.WriteLine($"  report:   {Path.Combine(outcome.OutputFolder, "report.md")}");
         output.WriteLine($"  edges:    {Path.Combine(outcome.OutputFolder, "edges.tsv")}");
-        output.WriteLine($"  figures:  {Path.Combine(outcome.OutputFolder, "figures")}");
+        if (Directory.Exists(Path.Combine(outcome.OutputFolder, "figures")))
+            output.WriteLine($"  figures:  {Path.Combine(outcome.OutputFolder, "figures")}");
         if (outcome.Contrasts.Count > 0)
             output.WriteLine($"  contrasts: {Path.Combine(outcome.OutputFolder, "contrasts.tsv")}");
         foreach (var c in outcome.Conditions)
             output.WriteLine($"  {c.Condition}: {c.Trials} trials{(c.Dropped.Count > 0 ? $", {c.Dropped.Count} dropped (listed in the manifest)" : "")}");
-        foreach (var w in outcome.Warnings) output.WriteLine($"  warning: {w}");
+        if (outcome.ResumedUnits is { Count: > 0 } resumed)
+            output.WriteLine($"  resumed: {resumed.Count} work unit(s) loaded from the interrupted earlier run ({string.Join("; ", resumed)})");
+        if (outcome.Warnings.Count > 0) output.WriteLine($"  {outcome.Warnings.Count} warning(s), shown before the computation and in the report");
         output.WriteLine($"  {outcome.Results.Sum(r => r.Significant.Count(s => s))} significant pairs in {outcome.Results.Count} tables; {outcome.Elapsed.TotalSeconds:0.0} s");
     }
 }

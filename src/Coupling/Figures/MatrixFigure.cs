@@ -9,7 +9,8 @@ namespace Coupling.Figures;
 /// Row a, column b shows pair (a, b), first channel at the top left; the lower triangle mirrors the upper one
 /// (negated for antisymmetric measures, as in the CSV matrices). Significant pairs are drawn at full colour
 /// with a centred dot (up to 48 channels); pairs that are not significant are faded to a quarter of their opacity over the
-/// white background; the diagonal and NaN values are left white. Colours: the perceptually uniform Viridis
+/// white background; the diagonal and NaN values are left white. A result with no test (every p NaN: a values-only
+/// run) is drawn at full colour and says so. Colours: the perceptually uniform Viridis
 /// map (van der Walt S, Smith N, 2015, matplotlib) from 0 to the largest value for non-negative measures, and
 /// the diverging cmocean Balance map (Thyng KM et al., 2016, Oceanography 29(3):9-13), symmetric about zero,
 /// for signed ones.
@@ -52,10 +53,11 @@ public static class MatrixFigure
         double top = finite.Length == 0 ? 1 : finite.Max(Math.Abs);
         if (top == 0) top = 1;
 
+        bool tested = result.P.Any(p => !double.IsNaN(p));
         var alpha = new byte[n, n];
         for (int a = 0; a < n; a++)
             for (int b = 0; b < n; b++)
-                alpha[a, b] = a == b || significant[a, b] ? (byte)255 : FadedAlpha;
+                alpha[a, b] = a == b || significant[a, b] || !tested ? (byte)255 : FadedAlpha;
 
         var heatmap = plot.Add.Heatmap(values);
         heatmap.Colormap = signed ? new ScottPlot.Colormaps.Balance() : new ScottPlot.Colormaps.Viridis();
@@ -107,8 +109,8 @@ public static class MatrixFigure
 
         int shown = result.Significant.Count(s => s);
         string marks = n <= MaxMarkedChannels ? " (dotted)" : "";
-        string note = shown == 0
-            ? "no pair significant; all cells faded"
+        string note = !tested ? "values only: no test (surrogates: 0)"
+            : shown == 0 ? "no pair significant; all cells faded"
             : $"{shown} of {result.Significant.Length} pairs significant{marks}; faded cells: not significant";
         plot.Title($"{FigureStyle.Title(result)}\n{note}", FigureStyle.TitleSize(width));
         FigureStyle.SavePng(plot, path, width, height);

@@ -188,6 +188,8 @@ internal static class SpectrumPlanReader
             threshold = ctx.Number(th, $"{key}.threshold");
             if (!(threshold > 0 && threshold < 1)) throw ctx.Error(th, $"{key}.threshold", $"expected a level between 0 and 1, got {Fmt(threshold)}");
         }
+        if (!c.ContainsKey("draws") && surrogates < 1)
+            throw ctx.Error(node, $"{key}.draws", "the plan draws no surrogates (surrogates: 0), so give the cluster test's own number of draws");
         int draws = c.TryGetValue("draws", out var dr) ? ctx.Int(dr, $"{key}.draws", 1, 1_000_000) : surrogates;
         return new ClusterTestSpec(pair, measure, names[0], names[1], threshold, draws);
     }

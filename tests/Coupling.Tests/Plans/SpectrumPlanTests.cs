@@ -96,4 +96,15 @@ public sealed class SpectrumPlanTests
             "'sleep' is not a condition");
         AssertRefused(16, ["  frequencies: [8]", "  pairs: [[A, B]]", "  figure_pair: [A, C]"], "spectrum.figure_pair");
     }
+
+    [Fact]
+    public void A_values_only_plan_needs_the_cluster_tests_own_draws()
+    {
+        var lines = Minimal.Select(l => l == "surrogates: 300" ? "surrogates: 0" : l)
+            .Concat(["  frequencies: [8]", "  cluster_test: { pair: [A, B], measure: plv, conditions: [cue, rest] }"]);
+        var e = Assert.Throws<InputException>(() => PlanReader.Parse(new StringReader(string.Join("\n", lines) + "\n"), Source));
+        Assert.Contains("spectrum.cluster_test.draws", e.Message);
+        var plan = PlanReader.Parse(new StringReader(string.Join("\n", lines).Replace("rest] }", "rest], draws: 99 }") + "\n"), Source);
+        Assert.Equal(99, plan.Spectrum!.ClusterTest!.Draws);
+    }
 }
