@@ -3,11 +3,11 @@ using ScottPlot;
 
 namespace Coupling.Figures;
 
-/// <summary>Draws one pair's connectivity spectrum (value against frequency), one line per condition, as a PNG.</summary>
+/// <summary>Draws one pair's connectivity spectrum (value against frequency), one line per condition (PNG and SVG).</summary>
 /// <remarks>
 /// Lines take the Okabe-Ito colours in condition order (Okabe M, Ito K, 2008, "Color universal design", distinguishable
 /// with the common colour-vision deficiencies), with a marker at each computed frequency; signed measures get a zero
-/// line. Axis ticks are a few round values.
+/// line. Axis ticks are a few round values (<see cref="FigureStyle.RoundTicks"/>).
 /// </remarks>
 public static class SpectrumFigure
 {
@@ -15,13 +15,13 @@ public static class SpectrumFigure
     internal static readonly Color[] Palette =
         new[] { "#0072B2", "#D55E00", "#009E73", "#CC79A7", "#E69F00", "#56B4E9", "#F0E442" }.Select(Color.FromHex).ToArray();
 
-    /// <summary>Writes the figure.</summary>
+    /// <summary>Writes the figure to every path, as PNG or SVG by its extension (<see cref="FigureStyle.Save"/>).</summary>
     /// <param name="spectra">One spectrum (one time bin) per condition, all of one pair and measure.</param>
-    /// <param name="path">Output PNG path; written atomically.</param>
+    /// <param name="paths">Output paths (.png, .svg); each written atomically.</param>
     /// <param name="width">Image width in pixels (at least 200).</param>
     /// <param name="height">Image height in pixels (at least 200).</param>
     /// <exception cref="ArgumentException">No spectra, or spectra of different pairs, measures or frequencies.</exception>
-    public static void Save(IReadOnlyList<TimeFrequencyValues> spectra, string path, int width = 900, int height = 600)
+    public static void Save(IReadOnlyList<TimeFrequencyValues> spectra, IReadOnlyList<string> paths, int width = 900, int height = 600)
     {
         if (spectra.Count == 0) throw new ArgumentException("No spectrum to draw.", nameof(spectra));
         var first = spectra[0];
@@ -54,17 +54,17 @@ public static class SpectrumFigure
         plot.Axes.Left.Label.Text = first.Measure;
         plot.ShowLegend(Alignment.UpperRight);
         plot.Title($"{first.ChannelA} – {first.ChannelB} · {first.Measure} over {Window(first.Times[0])}", FigureStyle.TitleSize(width));
-        FigureStyle.SavePng(plot, path, width, height);
+        FigureStyle.Save(plot, paths, width, height);
     }
 
     /// <summary>Puts a few round ticks between <paramref name="low"/> and <paramref name="high"/> on <paramref name="axis"/>.</summary>
     internal static void SetRoundTicks(ScottPlot.IAxis axis, double low, double high)
     {
-        var ticks = RoundTicks.Between(low, high);
-        axis.TickGenerator = new ScottPlot.TickGenerators.NumericManual(ticks, ticks.Select(RoundTicks.Label).ToArray());
+        var ticks = FigureStyle.RoundTicks(low, high);
+        axis.TickGenerator = new ScottPlot.TickGenerators.NumericManual(ticks, ticks.Select(t => FigureStyle.TickText(t, ticks)).ToArray());
         axis.MinorTickStyle.Length = 0;
     }
 
     private static string Window(double centre) =>
-        $"the analysis window (centre {RoundTicks.Label(centre)} s)";
+        $"the analysis window (centre {centre.ToString("G4", System.Globalization.CultureInfo.InvariantCulture)} s)";
 }

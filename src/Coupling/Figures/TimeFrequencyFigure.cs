@@ -4,24 +4,24 @@ using ScottPlot;
 
 namespace Coupling.Figures;
 
-/// <summary>Draws time-frequency maps of one pair as PNG heatmaps: a condition's values (or change from baseline), or a
+/// <summary>Draws time-frequency maps of one pair as heatmaps (PNG and SVG): a condition's values (or change from baseline), or a
 /// cluster test's standardised difference with its significant clusters marked.</summary>
 /// <remarks>
 /// Time runs along x (bin centres, s), frequency up y (one row per computed frequency, labelled with a few of them).
 /// Colours: the perceptually uniform Viridis map (van der Walt and Smith 2015, matplotlib) from 0 to the largest value
 /// for non-negative values, the diverging, perceptually uniform cmocean Balance map (Thyng et al. 2016, Oceanography
-/// 29(3):9-13) symmetric about zero for signed values, changes and z; NaN cells are white. The colour bar is titled and
-/// carries a few round ticks.
+/// 29(3):9-13) symmetric about zero for signed values, changes and z (<see cref="FigureColours"/>); NaN cells are white.
+/// The colour bar is titled and carries a few round ticks (<see cref="FigureStyle.AddColourBar"/>).
 /// </remarks>
 public static class TimeFrequencyFigure
 {
     /// <summary>Writes the map of <paramref name="values"/>: the change from baseline when it has one and <paramref name="change"/> is set, else the values.</summary>
     /// <param name="values">One pair, condition and measure over frequency x time.</param>
-    /// <param name="path">Output PNG path; written atomically.</param>
+    /// <param name="paths">Output paths (.png, .svg); each written atomically.</param>
     /// <param name="change">Draw the change from baseline (needs <see cref="TimeFrequencyValues.Change"/>).</param>
     /// <param name="width">Image width in pixels (at least 200).</param>
     /// <param name="height">Image height in pixels (at least 200).</param>
-    public static void Save(TimeFrequencyValues values, string path, bool change = false, int width = 900, int height = 600)
+    public static void Save(TimeFrequencyValues values, IReadOnlyList<string> paths, bool change = false, int width = 900, int height = 600)
     {
         var shown = change ? values.Change ?? throw new ArgumentException("No baseline change to draw.", nameof(change)) : values.Values;
         string label = change ? $"{values.Measure} change from baseline" : values.Measure;
@@ -29,16 +29,16 @@ public static class TimeFrequencyFigure
         using var plot = FigureStyle.NewPlot();
         Draw(plot, values.Frequencies, values.Times, shown, signed, label);
         plot.Title($"{values.ChannelA} – {values.ChannelB} · {values.Condition} · {label}", FigureStyle.TitleSize(width));
-        FigureStyle.SavePng(plot, path, width, height);
+        FigureStyle.Save(plot, paths, width, height);
     }
 
     /// <summary>Writes the cluster test's z map; cells of clusters with p at most <paramref name="level"/> carry a dot.</summary>
     /// <param name="result">The test.</param>
-    /// <param name="path">Output PNG path; written atomically.</param>
+    /// <param name="paths">Output paths (.png, .svg); each written atomically.</param>
     /// <param name="level">Cluster p-value at or below which a cluster is marked (e.g. 0.05).</param>
     /// <param name="width">Image width in pixels (at least 200).</param>
     /// <param name="height">Image height in pixels (at least 200).</param>
-    public static void SaveClusters(ClusterTestResult result, string path, double level = 0.05, int width = 900, int height = 600)
+    public static void SaveClusters(ClusterTestResult result, IReadOnlyList<string> paths, double level = 0.05, int width = 900, int height = 600)
     {
         using var plot = FigureStyle.NewPlot();
         Draw(plot, result.Frequencies, result.Times, result.Z, signed: true, $"z of {result.Measure} difference");
@@ -55,7 +55,7 @@ public static class TimeFrequencyFigure
             : $"{significant} cluster{(significant > 1 ? "s" : "")} with p ≤ {level:0.###} dotted ({result.Draws} permutations)";
         plot.Title($"{result.ChannelA} – {result.ChannelB} · {result.ConditionA} − {result.ConditionB} · {result.Measure}\n{note}",
             FigureStyle.TitleSize(width));
-        FigureStyle.SavePng(plot, path, width, height);
+        FigureStyle.Save(plot, paths, width, height);
     }
 
     /// <summary>x of bin <paramref name="t"/>: its centre in s, or the bin index when there is one bin.</summary>
@@ -73,7 +73,7 @@ public static class TimeFrequencyFigure
         double top = finite.Length == 0 ? 1 : finite.Max(Math.Abs);
         if (top == 0) top = 1;
         var heatmap = plot.Add.Heatmap(grid);
-        heatmap.Colormap = signed ? new ScottPlot.Colormaps.Balance() : new ScottPlot.Colormaps.Viridis();
+        heatmap.Colormap = signed ? FigureColours.Signed : FigureColours.Magnitude;
         heatmap.ManualRange = signed ? new ScottPlot.Range(-top, top) : new ScottPlot.Range(0, top);
         heatmap.NaNCellColor = Colors.White;
         double half = nT > 1 ? 0.5 * (times[^1] - times[0]) / (nT - 1) : 0.5;
@@ -81,19 +81,15 @@ public static class TimeFrequencyFigure
         // Rectangle gives the outer edges: half a bin beyond the first and last centres, half a row beyond the frequency rows.
         heatmap.Rectangle = new CoordinateRect(left - half, right + half, -0.5, nF - 0.5);
 
-        var bar = plot.Add.ColorBar(heatmap);
-        bar.Label = label;
-        bar.LabelStyle.FontSize = 14;
-        var range = heatmap.ManualRange!.Value;
-        SpectrumFigure.SetRoundTicks(bar.Axis, range.Min, range.Max);
+        FigureStyle.AddColourBar(plot, heatmap, label);
 
         if (nT > 1) SpectrumFigure.SetRoundTicks(plot.Axes.Bottom, times[0] - half, times[^1] + half);
-        else plot.Axes.Bottom.TickGenerator = new ScottPlot.TickGenerators.NumericManual([0.0], [$"{RoundTicks.Label(times[0])}"]);
+        else plot.Axes.Bottom.TickGenerator = new ScottPlot.TickGenerators.NumericManual([0.0], [times[0].ToString("G4", System.Globalization.CultureInfo.InvariantCulture)]);
         plot.Axes.Bottom.MinorTickStyle.Length = 0;
         int every = Math.Max(1, (int)Math.Ceiling(nF / 8.0));
         var rows = Enumerable.Range(0, nF).Where(f => f % every == 0).ToArray();
         plot.Axes.Left.TickGenerator = new ScottPlot.TickGenerators.NumericManual(
-            rows.Select(f => (double)f).ToArray(), rows.Select(f => RoundTicks.Label(frequencies[f])).ToArray());
+            rows.Select(f => (double)f).ToArray(), rows.Select(f => frequencies[f].ToString("G4", System.Globalization.CultureInfo.InvariantCulture)).ToArray());
         plot.Axes.Left.MinorTickStyle.Length = 0;
         plot.Axes.Bottom.Label.Text = "time (s)";
         plot.Axes.Left.Label.Text = "frequency (Hz)";

@@ -112,7 +112,7 @@ public static class RunReport
         sb.AppendLine("- Trial-shuffle surrogates keep each channel's stimulus-locked (evoked) activity, so a response shared only through the stimulus is not significant; " +
                       "the null hypothesis is no trial-by-trial dependence between the two channels.");
         sb.AppendLine("- Correction is within each condition x band x measure; looking across many tables raises the chance of a false finding again.");
-        sb.AppendLine("- Files: edges.tsv (every pair), nodes.tsv (degree, strength), matrices/ (CSV), graphs/ (GraphML), figures/ (PNG), manifest.json (everything the run depended on)" +
+        sb.AppendLine("- Files: edges.tsv (every pair), nodes.tsv (degree, strength, clustering, component, module), graphs.tsv (graph measures), matrices/ (CSV), graphs/ (GraphML), figures/ (PNG and SVG), manifest.json (everything the run depended on)" +
                       (analysis.Contrasts.Count > 0 ? "; contrasts.tsv, matrices/contrasts/ and figures/contrasts/ (condition differences)." : "."));
         AtomicFile.WriteAllText(path, sb.ToString());
     }

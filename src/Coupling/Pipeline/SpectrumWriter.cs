@@ -43,24 +43,22 @@ public static class SpectrumWriter
         var pair = spectrum.FigurePair;
         string pairName = $"{OutputNames.Sanitise(pair.A)}-{OutputNames.Sanitise(pair.B)}";
         bool Shown(TimeFrequency.TimeFrequencyValues v) => v.ChannelA == pair.A && v.ChannelB == pair.B;
+        // Every figure as PNG and SVG, like the other figures of a run.
+        void Draw(string stem, Action<string[]> save)
+        {
+            string[] files = [$"figures/spectrum/{stem}.png", $"figures/spectrum/{stem}.svg"];
+            save(files.Select(pathOf).ToArray());
+            written.AddRange(files);
+        }
         foreach (var measure in spectrum.Spec.Measures.Select(MeasureCatalog.Key))
-        {
-            string name = $"figures/spectrum/{pairName}_{OutputNames.Sanitise(measure)}_spectrum.png";
-            SpectrumFigure.Save(spectrum.Spectrum.Where(v => Shown(v) && v.Measure == measure).ToArray(), pathOf(name));
-            written.Add(name);
-        }
+            Draw($"{pairName}_{OutputNames.Sanitise(measure)}_spectrum",
+                paths => SpectrumFigure.Save(spectrum.Spectrum.Where(v => Shown(v) && v.Measure == measure).ToArray(), paths));
         foreach (var values in spectrum.TimeCourse.Where(Shown))
-        {
-            string name = $"figures/spectrum/{pairName}_{OutputNames.Sanitise(values.Condition)}_{OutputNames.Sanitise(values.Measure)}_time_frequency.png";
-            TimeFrequencyFigure.Save(values, pathOf(name), change: values.Change is not null);
-            written.Add(name);
-        }
+            Draw($"{pairName}_{OutputNames.Sanitise(values.Condition)}_{OutputNames.Sanitise(values.Measure)}_time_frequency",
+                paths => TimeFrequencyFigure.Save(values, paths, change: values.Change is not null));
         if (spectrum.ClusterTest is { } result)
-        {
-            string name = $"figures/spectrum/{OutputNames.Sanitise(result.ChannelA)}-{OutputNames.Sanitise(result.ChannelB)}_{OutputNames.Sanitise(result.Measure)}_{OutputNames.Sanitise(result.ConditionA)}-vs-{OutputNames.Sanitise(result.ConditionB)}_clusters.png";
-            TimeFrequencyFigure.SaveClusters(result, pathOf(name));
-            written.Add(name);
-        }
+            Draw($"{OutputNames.Sanitise(result.ChannelA)}-{OutputNames.Sanitise(result.ChannelB)}_{OutputNames.Sanitise(result.Measure)}_{OutputNames.Sanitise(result.ConditionA)}-vs-{OutputNames.Sanitise(result.ConditionB)}_clusters",
+                paths => TimeFrequencyFigure.SaveClusters(result, paths));
         return written;
     }
 

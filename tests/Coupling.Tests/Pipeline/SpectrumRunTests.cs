@@ -78,7 +78,10 @@ public class SpectrumRunTests
             "figures/spectrum/A-B_go_plv_time_frequency.png", "figures/spectrum/A-B_stay_coherence_time_frequency.png",
             "figures/spectrum/A-B_plv_go-vs-stay_clusters.png",
         })
+        {
             Assert.Equal((900, 600), PngHeader.Read(Out(png)));
+            Assert.Contains("<svg", File.ReadAllText(Out(Path.ChangeExtension(png, ".svg"))));
+        }
 
         string report = File.ReadAllText(Out("report.md"));
         Assert.Contains("## Spectra and time-frequency maps", report);
