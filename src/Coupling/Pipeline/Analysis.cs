@@ -24,4 +24,8 @@ public sealed record Analysis(
     IReadOnlyList<ContrastPairResult> Contrasts,
     IReadOnlyList<PairDirection>? Directions = null,
     IReadOnlyList<BandSignalSummary>? Signals = null,
-    SurrogateDistribution? SurrogateExample = null);
+    SurrogateDistribution? SurrogateExample = null)
+{
+    /// <summary>Frequency- and time-resolved results of the plan's <c>spectrum</c> key; null without it.</summary>
+    public SpectrumAnalysis? Spectrum { get; init; }
+}

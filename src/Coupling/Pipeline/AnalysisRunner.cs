@@ -177,7 +177,10 @@ public static class AnalysisRunner
             progress?.Report(new RunProgress($"{results[r].Condition} / {results[r].Band}: surrogate draws of one edge", 0, 0));
             example = SurrogateExample.Compute(plan, input, results[r], pair, chosen, decompositions[bi], steps[bi], pad, workers);
         }
-        return new Analysis(results, summaries, decompositions.Select(d => d.Info).ToArray(), steps, pad, warnings, contrasts, directions, signals, example);
+        return new Analysis(results, summaries, decompositions.Select(d => d.Info).ToArray(), steps, pad, warnings, contrasts, directions, signals, example)
+        {
+            Spectrum = SpectrumRunner.Analyse(plan, input, progress, workers, cancellationToken),
+        };
     }
 
     /// <summary>

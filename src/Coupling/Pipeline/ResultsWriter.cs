@@ -94,6 +94,8 @@ public static class ResultsWriter
             }
         }
 
+        if (analysis.Spectrum is not null) written.AddRange(SpectrumWriter.Write(analysis.Spectrum, plan.Figures, folder.PathOf));
+
         if (analysis.Directions is not null)
         {
             DirectionTableWriter.Write(analysis.Directions, folder.PathOf("directions.tsv"));
@@ -145,6 +147,7 @@ public static class ResultsWriter
                 ["warnings"] = new JsonArray(analysis.Warnings.Select(n => (JsonNode)JsonValue.Create(n)!).ToArray()),
             },
         };
+        if (analysis.Spectrum is not null) manifest.Extra!["spectrum"] = SpectrumWriter.ManifestNode(analysis.Spectrum);
         var report = new ReportContent(plan, manifest, analysis, input.Source, input.SampleRate, input.Channels.Select(c => c.Label).ToArray(),
             input.Notes, flags, ArtefactFlags.Unchecked(plan.Measures.Select(Measures.MeasureCatalog.Key).ToArray(), plan.SubtractEvoked));
         HtmlReport.Write(report, folder.WorkingPath, folder.PathOf("report.html"));

@@ -107,4 +107,7 @@ public sealed record Plan
     /// <summary>Where a key is in the plan, for messages: "plan.yaml, line 12: bands.theta", or without the line when unknown.</summary>
     public string Where(string key) =>
         KeyLines.TryGetValue(key, out int line) ? $"{Source}, line {line}: {key}" : $"{Source}: {key}";
+
+    /// <summary>Frequency- and time-resolved connectivity of chosen pairs; null when the plan has no <c>spectrum</c> key.</summary>
+    public SpectrumSpec? Spectrum { get; init; }
 }

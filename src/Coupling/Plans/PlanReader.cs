@@ -19,7 +19,7 @@ public static class PlanReader
     [
         "recording", "events", "channels", "sample_rate", "epochs", "conditions", "trial", "window", "evoked",
         "bands", "decomposition", "measures", "surrogates", "seed", "correction", "output", "figures", "threads",
-        "contrasts", "overwrite", "truncated_recording", "unusable_data", "intervals", "match_trials", "direction", "surrogate_figure",
+        "contrasts", "overwrite", "truncated_recording", "unusable_data", "intervals", "match_trials", "direction", "surrogate_figure", "spectrum",
     ];
 
     /// <summary>Fewest surrogate draws the <c>surrogates</c> key allows (0: values without a test).</summary>
@@ -134,6 +134,7 @@ public static class PlanReader
         var surrogateFigure = map.TryGetValue("surrogate_figure", out var sf) ? ReadSurrogateFigure(ctx, sf, conditions, bands, measures) : null;
         bool keepComplete = map.TryGetValue("truncated_recording", out var tr)
             && ctx.Choice(tr, "truncated_recording", ["refuse", "keep-complete-records"]) == "keep-complete-records";
+        var spectrum = map.TryGetValue("spectrum", out var sp) ? SpectrumPlanReader.Read(ctx, sp, conditions, measures, trial, surrogates) : null;
 
         return new Plan
         {
@@ -166,6 +167,7 @@ public static class PlanReader
             KeepCompleteRecords = keepComplete,
             UnusableData = map.TryGetValue("unusable_data", out var ud) ? ctx.Choice(ud, "unusable_data", Pipeline.UnusableData.Policies) : Pipeline.UnusableData.Refuse,
             KeyLines = KeyLines(root),
+            Spectrum = spectrum,
         };
     }
 
@@ -376,7 +378,7 @@ public static class PlanReader
 
     private static string Fmt(double v) => v.ToString("G6", CultureInfo.InvariantCulture);
 
-    private sealed class Context(string source, string folder)
+    internal sealed class Context(string source, string folder)
     {
         public InputException Error(YamlNode node, string key, string what) =>
             new($"{source}, line {node.Start.Line}: {key}: {what}.");
