@@ -3,7 +3,14 @@ using Coupling.Benchmarks;
 
 // Entry point: "w1 [--channels N] [--trials N] [--draws N] [--conditions N] [--threads N] [--step K]" times the
 // reference workload end to end; "kernels [...]" times each kernel group; "precision PLAN [--draws N]" compares
-// single-precision storage with double; anything else goes to BenchmarkDotNet.
+// single-precision storage with double; "stages PLAN [--threads N]" times each stage of a plan's analysis; anything
+// else goes to BenchmarkDotNet.
+if (args.Length > 1 && args[0] == "stages")
+{
+    int i = Array.IndexOf(args, "--threads");
+    PlanStages.Run(args[1], i > 0 ? int.Parse(args[i + 1], System.Globalization.CultureInfo.InvariantCulture) : 0, Console.Out);
+    return 0;
+}
 if (args.Length > 1 && args[0] == "precision")
 {
     int i = Array.IndexOf(args, "--draws");
