@@ -218,6 +218,17 @@ public static class PairwiseKernels
 
     private static void AddLag(PairwiseWorkspace w, ref double re, ref double im, long timeBase, ReadOnlySpan<int> permutation)
     {
+        bool signs = w.DenseOf(Measure.Pli) is not null, squares = w.DenseOf(Measure.WpliDebiased) is not null;
+        bool sum = squares || w.DenseOf(Measure.Wpli) is not null;
+        if (squares) { if (signs) AddLag<LagAll>(w, ref re, ref im, timeBase, permutation); else AddLag<LagSumSquares>(w, ref re, ref im, timeBase, permutation); }
+        else if (sum) { if (signs) AddLag<LagSumSigns>(w, ref re, ref im, timeBase, permutation); else AddLag<LagSum>(w, ref re, ref im, timeBase, permutation); }
+        else AddLag<LagSigns>(w, ref re, ref im, timeBase, permutation);
+    }
+
+    /// <summary>The lag measures of one time point, with the tile forming only the sums they need.</summary>
+    private static void AddLag<TSums>(PairwiseWorkspace w, ref double re, ref double im, long timeBase, ReadOnlySpan<int> permutation)
+        where TSums : struct, ILagSums
+    {
         var tables = w.Tables;
         int channels = tables.Channels, stride = tables.Stride;
         var pli = w.DenseOf(Measure.Pli);
@@ -227,7 +238,7 @@ public static class PairwiseKernels
         for (int b0 = 0; b0 < channels; b0 += TileKernels.LagColumns)
             for (int a0 = 0; a0 < Math.Min(b0 + TileKernels.LagColumns, channels) - 1; a0 += TileKernels.LagRows)
             {
-                TileKernels.LagTile(ref re, ref im, timeBase, stride, permutation, a0, b0, ref sums);
+                TileKernels.LagTile<TSums>(ref re, ref im, timeBase, stride, permutation, a0, b0, ref sums);
                 for (int i = 0; i < 4; i++)
                 {
                     int r = i / 2, v = i % 2;
