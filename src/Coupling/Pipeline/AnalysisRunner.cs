@@ -88,23 +88,38 @@ public static class AnalysisRunner
         var summaries = new List<ConditionSummary>();
         for (int ci = 0; ci < plan.Conditions.Count; ci++)
         {
-            var trials = input.Trials(plan.Conditions[ci], plan.Trial, pad);
+            TrialSet? trials = input.Trials(plan.Conditions[ci], plan.Trial, pad);
             if (plan.SubtractEvoked) EvokedRemoval.SubtractInPlace(trials);
             summaries.Add(new ConditionSummary(trials.Condition, trials.TrialCount, trials.DroppedTrials));
+            string conditionName = trials.Condition;
+            var channels = trials.Channels;
+            // Memory: when every band's narrowband set together is smaller than the padded trials, isolate them all
+            // first and let the trials go before the surrogate tests (BandOrder).
+            var sets = new NarrowbandSet?[decompositions.Length];
+            if (BandOrder.IsolateAllFirst(trials, plan.Window, steps))
+            {
+                for (int bi = 0; bi < decompositions.Length; bi++)
+                {
+                    progress?.Report(new RunProgress($"{conditionName} / {plan.Bands[bi].Name}: band isolation", 0, 0));
+                    sets[bi] = NarrowbandExtractor.Extract(trials, decompositions[bi], plan.Window, steps[bi], workers);
+                }
+                trials = null;
+            }
             for (int bi = 0; bi < decompositions.Length; bi++)
             {
-                string stage = $"{trials.Condition} / {plan.Bands[bi].Name}";
-                progress?.Report(new RunProgress($"{stage}: band isolation", 0, 0));
-                var narrowband = NarrowbandExtractor.Extract(trials, decompositions[bi], plan.Window, steps[bi], workers);
+                string stage = $"{conditionName} / {plan.Bands[bi].Name}";
+                if (sets[bi] is null) progress?.Report(new RunProgress($"{stage}: band isolation", 0, 0));
+                var narrowband = sets[bi] ?? NarrowbandExtractor.Extract(trials!, decompositions[bi], plan.Window, steps[bi], workers);
+                sets[bi] = null;
                 var stageProgress = progress is null ? null
                     : new Progress<int>(done => progress.Report(new RunProgress($"{stage}: surrogates", done, plan.Surrogates)));
-                var tested = SurrogateTest.Run(narrowband, plan.Measures, plan.Surrogates, Seeds.For(plan.Seed, ci, bi), trials.Condition,
+                var tested = SurrogateTest.Run(narrowband, plan.Measures, plan.Surrogates, Seeds.For(plan.Seed, ci, bi), conditionName,
                     workers > 0 ? workers : null, stageProgress, cancellationToken);
                 foreach (var m in tested)
                 {
                     var corrected = FalseDiscoveryRate.BenjaminiHochbergOfDefined(m.P);
                     var significant = corrected.Select(q => q <= plan.Q).ToArray();
-                    results.Add(new PairResult(trials.Condition, plan.Bands[bi].Name, MeasureCatalog.Key(m.Measure), trials.Channels,
+                    results.Add(new PairResult(conditionName, plan.Bands[bi].Name, MeasureCatalog.Key(m.Measure), channels,
                         m.Observed, m.Z, m.P, corrected, significant, input.Channels.Select(c => c.Position).ToArray()));
                 }
             }
