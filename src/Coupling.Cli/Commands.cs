@@ -9,14 +9,17 @@ namespace Coupling.Cli;
 /// <summary>The actions behind the commands: each calls the library and prints through the given writers.</summary>
 internal static class Commands
 {
-    public static int Demo(string folder, int? surrogates, int threads, TextWriter output, TextWriter error)
+    public static int Demo(string folder, int? surrogates, int threads, bool force, Verbosity verbosity, TextWriter output, TextWriter error)
     {
-        output.WriteLine($"Simulating the demo scenario into {folder} ...");
+        if (surrogates is { } n && (n < PlanReader.MinSurrogates || n > PlanReader.MaxSurrogates))
+            throw new InputException($"--surrogates: {n} is not a whole number from {PlanReader.MinSurrogates} to {PlanReader.MaxSurrogates}.");
+        ScenarioFolder.Check(folder, force);
+        if (verbosity != Verbosity.Quiet) output.WriteLine($"Simulating the demo scenario into {folder} ...");
         var paths = ScenarioFiles.Write(folder, new ScenarioOptions { Seed = ScenarioFiles.DefaultSeed },
             surrogates ?? ScenarioFiles.DefaultSurrogates);
-        var plan = PlanReader.Read(paths.Plan);
-        var outcome = Execute(plan, threads, $"coupling demo --output {folder}", error);
-        PrintOutcome(outcome, output);
+        var plan = PlanReader.Read(paths.Plan) with { Overwrite = force };
+        var outcome = Execute(plan, threads, $"coupling demo --output {folder}", error, restart: false, verbosity);
+        PrintOutcome(outcome, plan, verbosity, output);
 
         var truth = TruthFile.Read(paths.Truth);
         var lines = TruthCheck.Compare(truth, outcome.Results).Concat(TruthCheck.CompareContrasts(truth, outcome.Contrasts)).ToArray();
@@ -41,16 +44,26 @@ internal static class Commands
         return 0;
     }
 
-    public static int RunPlan(string planPath, int threads, TextWriter output, TextWriter error)
+    public static int RunPlan(PlanOverrides options, int threads, bool restart, Verbosity verbosity, TextWriter output, TextWriter error)
     {
-        var plan = PlanReader.Read(planPath);
-        var outcome = Execute(plan, threads, $"coupling run {planPath}", error);
-        PrintOutcome(outcome, output);
+        var plan = options.Read();
+        if (verbosity == Verbosity.Verbose && !restart) PrintPreview(PlanCheck.Preview(plan), plan, output);
+        var outcome = Execute(plan, threads, $"coupling run {options.PlanPath}", error, restart, verbosity);
+        PrintOutcome(outcome, plan, verbosity, output);
         return 0;
     }
 
-    public static int Simulate(string folder, int seed, int? trials, TextWriter output)
+    public static int Check(PlanOverrides options, TextWriter output)
     {
+        var plan = options.Read();
+        PrintPreview(PlanCheck.Preview(plan), plan, output);
+        output.WriteLine("The plan is valid; nothing was computed or written.");
+        return 0;
+    }
+
+    public static int Simulate(string folder, int seed, int? trials, bool force, TextWriter output)
+    {
+        ScenarioFolder.Check(folder, force);
         var options = new ScenarioOptions { Seed = seed };
         if (trials is { } n) options = options with { TrialsPerCondition = n };
         var paths = ScenarioFiles.Write(folder, options);
@@ -76,30 +89,64 @@ internal static class Commands
         return 0;
     }
 
-    private static RunOutcome Execute(Plan plan, int threads, string commandLine, TextWriter error)
+    private static RunOutcome Execute(Plan plan, int threads, string commandLine, TextWriter error, bool restart, Verbosity verbosity)
     {
-        var progress = new TerminalProgress(error, ReferenceEquals(error, Console.Error) && !Console.IsErrorRedirected);
         using var stop = new CancellationTokenSource();
         ConsoleCancelEventHandler onCancel = (_, e) => { e.Cancel = true; stop.Cancel(); };
         Console.CancelKeyPress += onCancel;
-        try { return AnalysisRunner.Run(plan, progress, threads, commandLine, stop.Token); }
+        try
+        {
+            RunOutcome Work(IProgress<RunProgress>? progress) => AnalysisRunner.Run(plan, progress, threads, commandLine, stop.Token, restart);
+            if (verbosity == Verbosity.Quiet) return Work(null);
+            bool terminal = ReferenceEquals(error, Console.Error) && !Console.IsErrorRedirected;
+            return terminal ? BarProgress.Show(error, Work) : Work(new PlainProgress(error, verbosity == Verbosity.Verbose));
+        }
         finally
         {
             Console.CancelKeyPress -= onCancel;
-            progress.End();
         }
     }
 
-    private static void PrintOutcome(RunOutcome outcome, TextWriter output)
+    private static void PrintPreview(PlanPreview p, Plan plan, TextWriter output)
+    {
+        var inv = CultureInfo.InvariantCulture;
+        output.WriteLine($"Plan: {p.Plan}");
+        output.WriteLine(string.Create(inv, $"Recording: {p.Recording}, {p.SampleRate:G6} Hz, {p.Channels.Count} channels ({string.Join(", ", p.Channels)}), {p.Pairs} pairs"));
+        output.WriteLine("Trials per condition:");
+        foreach (var c in p.Conditions) output.WriteLine($"  {c.Condition}: {c.Trials}");
+        output.WriteLine("Bands:");
+        foreach (var b in p.Bands)
+        {
+            string kernel = b.Method == "morlet" ? "wavelet support" : "filter";
+            output.WriteLine(string.Create(inv,
+                $"  {b.Band}: {b.Method}, {kernel} {b.KernelSamples} samples ({b.KernelSeconds:G4} s), padding {b.PadSamples} samples per trial end, time step {b.TimeStep} samples"));
+        }
+        output.WriteLine($"Work units: {p.WorkUnits.Count} ({plan.Conditions.Count} condition(s) x {plan.Bands.Count} band(s)" +
+            (plan.Contrasts.Count > 0 ? $", {plan.Contrasts.Count} contrast(s) x {plan.Bands.Count} band(s)" : "") + $"), {p.Surrogates} surrogates each");
+        foreach (var u in p.WorkUnits) output.WriteLine($"  {u}{(p.KeptUnits.Contains(u) ? "   (kept by an interrupted run: loaded, not computed)" : "")}");
+        string verdict = p.Surrogates < p.SurrogatesForOneDiscovery ? " (too few for a lone coupled pair to pass the correction)." : ".";
+        output.WriteLine(string.Create(inv,
+            $"Surrogates needed for a single discovery among {p.Pairs} pairs at q = {plan.Q:G3}: at least {p.SurrogatesForOneDiscovery}; the plan has {p.Surrogates}{verdict}"));
+        output.WriteLine($"Output: {p.Output}{(Directory.Exists(p.Output) ? " (earlier results, to be replaced)" : "")}");
+    }
+
+    private static void PrintOutcome(RunOutcome outcome, Plan plan, Verbosity verbosity, TextWriter output)
     {
         output.WriteLine($"Results: {outcome.OutputFolder}");
+        if (verbosity == Verbosity.Quiet)
+        {
+            foreach (var w in outcome.Warnings) output.WriteLine($"  warning: {w}");
+            return;
+        }
         output.WriteLine($"  report:   {Path.Combine(outcome.OutputFolder, "report.md")}");
         output.WriteLine($"  edges:    {Path.Combine(outcome.OutputFolder, "edges.tsv")}");
-        output.WriteLine($"  figures:  {Path.Combine(outcome.OutputFolder, "figures")}");
+        if (plan.Figures) output.WriteLine($"  figures:  {Path.Combine(outcome.OutputFolder, "figures")}");
         if (outcome.Contrasts.Count > 0)
             output.WriteLine($"  contrasts: {Path.Combine(outcome.OutputFolder, "contrasts.tsv")}");
         foreach (var c in outcome.Conditions)
             output.WriteLine($"  {c.Condition}: {c.Trials} trials{(c.Dropped.Count > 0 ? $", {c.Dropped.Count} dropped (listed in the manifest)" : "")}");
+        if (outcome.ResumedUnits is { Count: > 0 } resumed)
+            output.WriteLine($"  resumed: {resumed.Count} work unit(s) loaded from the interrupted earlier run ({string.Join("; ", resumed)})");
         foreach (var w in outcome.Warnings) output.WriteLine($"  warning: {w}");
         output.WriteLine($"  {outcome.Results.Sum(r => r.Significant.Count(s => s))} significant pairs in {outcome.Results.Count} tables; {outcome.Elapsed.TotalSeconds:0.0} s");
     }

@@ -10,6 +10,16 @@ namespace Coupling.Outputs;
 /// </summary>
 public sealed record Manifest
 {
+    /// <summary>The <see cref="Format"/> of a results folder written by this tool's <c>run</c> command.</summary>
+    public const string ResultsFormat = "coupling-results-1";
+
+    /// <summary>
+    /// What the folder holding this manifest is: <see cref="ResultsFormat"/> for a results folder written by this tool, whose
+    /// <see cref="Outputs"/> then lists every file of it; null for manifests written before the field existed, which are not
+    /// recognised as results folders (such a folder is never replaced).
+    /// </summary>
+    public string? Format { get; init; }
+
     /// <summary>Program, runtime, OS and library versions.</summary>
     public required ToolInfo Tool { get; init; }
 
@@ -43,8 +53,15 @@ public sealed record Manifest
     /// <summary>Time step between analysed time points, per band.</summary>
     public IReadOnlyList<BandTimeStep> TimeSteps { get; init; } = [];
 
-    /// <summary>Output files written by the run, relative to the results folder.</summary>
+    /// <summary>Output files written by the run, relative to the results folder ('/' separated, manifest.json included).</summary>
     public IReadOnlyList<string> Outputs { get; init; } = [];
+
+    /// <summary>
+    /// Work units (e.g. <c>condition go / band alpha</c>) whose results were loaded from an interrupted earlier run of the same
+    /// plan and inputs rather than computed again; empty for a run computed whole. Like <see cref="Started"/> and
+    /// <see cref="Finished"/> it describes the run, not the results.
+    /// </summary>
+    public IReadOnlyList<string> ResumedUnits { get; init; } = [];
 
     /// <summary>Further named values a stage wants recorded (e.g. shard number, merge sources); null when none.</summary>
     public JsonObject? Extra { get; init; }

@@ -22,26 +22,34 @@ public static class AnalysisRunner
     /// <param name="threads">Worker threads, overriding the plan's when above 0.</param>
     /// <param name="commandLine">The command line that started the run, for the manifest.</param>
     /// <param name="cancellationToken">Stops the run (with <see cref="OperationCanceledException"/>) before anything is committed.</param>
+    /// <param name="restart">Discard the units kept by an interrupted earlier run instead of resuming it (see <see cref="UnfinishedRun"/>).</param>
     public static RunOutcome Run(Plan plan, IProgress<RunProgress>? progress = null, int threads = 0, string? commandLine = null,
-        CancellationToken cancellationToken = default)
+        CancellationToken cancellationToken = default, bool restart = false)
     {
         var started = DateTimeOffset.UtcNow;
         var clock = Stopwatch.StartNew();
         int workers = threads > 0 ? threads : plan.Threads;
 
+        PlanInputs.CheckOutput(plan);
+        var units = UnfinishedRun.Open(plan, restart);
         progress?.Report(new RunProgress("reading input", 0, 0));
         var input = InputLoader.Load(plan);
-        var analysis = Analyse(plan, input, progress, workers, cancellationToken);
+        var analysis = Analyse(plan, input, progress, workers, cancellationToken, units);
         cancellationToken.ThrowIfCancellationRequested();
 
         progress?.Report(new RunProgress("writing results", 0, 0));
-        var written = ResultsWriter.Write(plan, input, analysis, new RunContext(started, clock.Elapsed, commandLine, workers), progress);
-        return new RunOutcome(written, analysis.Results, analysis.Conditions, analysis.Warnings, clock.Elapsed, analysis.Contrasts);
+        var written = ResultsWriter.Write(plan, input, analysis, new RunContext(started, clock.Elapsed, commandLine, workers, units.Resumed), progress);
+        units.Remove();
+        return new RunOutcome(written, analysis.Results, analysis.Conditions, analysis.Warnings, clock.Elapsed, analysis.Contrasts, units.Resumed);
     }
 
-    /// <summary>Everything computed by a run, before it is written.</summary>
+    /// <summary>
+    /// Everything computed by a run, before it is written. With <paramref name="units"/> (the last parameter) each
+    /// condition x band and contrast x band is loaded when an interrupted earlier run kept it, and kept once computed;
+    /// without, every unit is computed.
+    /// </summary>
     public static Analysis Analyse(Plan plan, LoadedInput input, IProgress<RunProgress>? progress, int workers,
-        CancellationToken cancellationToken = default)
+        CancellationToken cancellationToken = default, UnfinishedRun? units = null)
     {
         var decompositions = plan.Bands
             .Select(b => InPlan(plan, $"bands.{b.Name}", () => BandDecompositions.Create(plan.Decomposition.Method, b, input.SampleRate,
@@ -86,6 +94,8 @@ public static class AnalysisRunner
 
         var results = new List<PairResult>();
         var summaries = new List<ConditionSummary>();
+        // A condition with a unit kept by an interrupted run is isolated band by band, so kept bands are not isolated again.
+        var kept = units?.KeptUnits(plan) ?? [];
         for (int ci = 0; ci < plan.Conditions.Count; ci++)
         {
             TrialSet? trials = input.Trials(plan.Conditions[ci], plan.Trial, pad);
@@ -96,7 +106,8 @@ public static class AnalysisRunner
             // Memory: when every band's narrowband set together is smaller than the padded trials, isolate them all
             // first and let the trials go before the surrogate tests (BandOrder).
             var sets = new NarrowbandSet?[decompositions.Length];
-            if (BandOrder.IsolateAllFirst(trials, plan.Window, steps))
+            bool resuming = plan.Bands.Any(b => kept.Contains(UnfinishedRun.ConditionUnit(conditionName, b.Name)));
+            if (!resuming && BandOrder.IsolateAllFirst(trials, plan.Window, steps))
             {
                 for (int bi = 0; bi < decompositions.Length; bi++)
                 {
@@ -108,13 +119,18 @@ public static class AnalysisRunner
             for (int bi = 0; bi < decompositions.Length; bi++)
             {
                 string stage = $"{conditionName} / {plan.Bands[bi].Name}";
-                if (sets[bi] is null) progress?.Report(new RunProgress($"{stage}: band isolation", 0, 0));
-                var narrowband = sets[bi] ?? NarrowbandExtractor.Extract(trials!, decompositions[bi], plan.Window, steps[bi], workers);
+                IReadOnlyList<SurrogateResult> Compute()
+                {
+                    if (sets[bi] is null) progress?.Report(new RunProgress($"{stage}: band isolation", 0, 0));
+                    var narrowband = sets[bi] ?? NarrowbandExtractor.Extract(trials!, decompositions[bi], plan.Window, steps[bi], workers);
+                    sets[bi] = null;
+                    var stageProgress = progress is null ? null
+                        : new Progress<int>(done => progress.Report(new RunProgress($"{stage}: surrogates", done, plan.Surrogates)));
+                    return SurrogateTest.Run(narrowband, plan.Measures, plan.Surrogates, Seeds.For(plan.Seed, ci, bi), conditionName,
+                        workers > 0 ? workers : null, stageProgress, cancellationToken);
+                }
+                var tested = units?.Condition(ci, bi, UnfinishedRun.ConditionUnit(conditionName, plan.Bands[bi].Name), Compute) ?? Compute();
                 sets[bi] = null;
-                var stageProgress = progress is null ? null
-                    : new Progress<int>(done => progress.Report(new RunProgress($"{stage}: surrogates", done, plan.Surrogates)));
-                var tested = SurrogateTest.Run(narrowband, plan.Measures, plan.Surrogates, Seeds.For(plan.Seed, ci, bi), conditionName,
-                    workers > 0 ? workers : null, stageProgress, cancellationToken);
                 foreach (var m in tested)
                 {
                     var corrected = FalseDiscoveryRate.BenjaminiHochbergOfDefined(m.P);
@@ -124,7 +140,7 @@ public static class AnalysisRunner
                 }
             }
         }
-        var contrasts = Contrast(plan, input, decompositions, steps, pad, progress, workers, cancellationToken);
+        var contrasts = Contrast(plan, input, decompositions, steps, pad, progress, workers, cancellationToken, units);
         return new Analysis(results, summaries, decompositions.Select(d => d.Info).ToArray(), steps, pad, warnings, contrasts);
     }
 
@@ -135,7 +151,7 @@ public static class AnalysisRunner
     /// again) and per worker thread one split's data and kernel tables.
     /// </summary>
     private static List<ContrastPairResult> Contrast(Plan plan, LoadedInput input, IBandDecomposition[] decompositions, int[] steps,
-        int pad, IProgress<RunProgress>? progress, int workers, CancellationToken cancellationToken)
+        int pad, IProgress<RunProgress>? progress, int workers, CancellationToken cancellationToken, UnfinishedRun? units)
     {
         var results = new List<ContrastPairResult>();
         var positions = input.Channels.Select(c => c.Position).ToArray();
@@ -148,13 +164,17 @@ public static class AnalysisRunner
             {
                 cancellationToken.ThrowIfCancellationRequested();
                 string stage = $"{contrast.ConditionA} vs {contrast.ConditionB} / {plan.Bands[bi].Name}";
-                progress?.Report(new RunProgress($"{stage}: band isolation", 0, 0));
-                var a = NarrowbandExtractor.Extract(trialsA, decompositions[bi], plan.Window, steps[bi], workers);
-                var b = NarrowbandExtractor.Extract(trialsB, decompositions[bi], plan.Window, steps[bi], workers);
-                var stageProgress = progress is null ? null
-                    : new Progress<int>(done => progress.Report(new RunProgress($"{stage}: label permutations", done, plan.Surrogates)));
-                var tested = ConditionContrast.Run(a, b, plan.Measures, plan.Surrogates, Seeds.ForContrast(plan.Seed, ki, bi), contrast.Name,
-                    workers > 0 ? workers : null, stageProgress, cancellationToken);
+                IReadOnlyList<ContrastResult> Compute()
+                {
+                    progress?.Report(new RunProgress($"{stage}: band isolation", 0, 0));
+                    var a = NarrowbandExtractor.Extract(trialsA, decompositions[bi], plan.Window, steps[bi], workers);
+                    var b = NarrowbandExtractor.Extract(trialsB, decompositions[bi], plan.Window, steps[bi], workers);
+                    var stageProgress = progress is null ? null
+                        : new Progress<int>(done => progress.Report(new RunProgress($"{stage}: label permutations", done, plan.Surrogates)));
+                    return ConditionContrast.Run(a, b, plan.Measures, plan.Surrogates, Seeds.ForContrast(plan.Seed, ki, bi), contrast.Name,
+                        workers > 0 ? workers : null, stageProgress, cancellationToken);
+                }
+                var tested = units?.Contrast(ki, bi, UnfinishedRun.ContrastUnit(contrast.Name, plan.Bands[bi].Name), Compute) ?? Compute();
                 foreach (var m in tested)
                 {
                     var corrected = FalseDiscoveryRate.BenjaminiHochbergOfDefined(m.P);

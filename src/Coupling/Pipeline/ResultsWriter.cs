@@ -28,7 +28,7 @@ public static class ResultsWriter
     public static string Write(Plan plan, LoadedInput input, Analysis analysis, RunContext context, IProgress<RunProgress>? progress)
     {
         OutputFolder.RemoveLeftovers(plan.Output);
-        using var folder = OutputFolder.Begin(plan.Output);
+        using var folder = OutputFolder.Begin(plan.Output, plan.Overwrite, $"{plan.Source}: output");
         var written = new List<string>();
         string Rel(string path) => Path.GetRelativePath(folder.WorkingPath, path).Replace('\\', '/');
 
@@ -89,17 +89,19 @@ public static class ResultsWriter
 
         var manifest = new Manifest
         {
+            Format = Manifest.ResultsFormat,
             Tool = ToolInfo.Current(),
             Started = context.Started,
             Finished = DateTimeOffset.UtcNow,
             CommandLine = context.CommandLine is null ? [] : [context.CommandLine],
-            Inputs = InputFiles(plan, input).Select(InputFileRecord.Of).ToArray(),
+            Inputs = PlanInputs.Files(plan).Select(InputFileRecord.Of).ToArray(),
             Plan = JsonSerializer.SerializeToNode(plan, PlanJson),
             Seed = plan.Seed,
             Decompositions = analysis.Decompositions,
             Conditions = analysis.Conditions.Select(c => new ConditionTrials(c.Condition, c.Trials, c.Dropped)).ToArray(),
             TimeSteps = plan.Bands.Select((b, i) => new BandTimeStep(b.Name, analysis.TimeSteps[i], analysis.TimeSteps[i] / input.SampleRate)).ToArray(),
             Outputs = written.Append("manifest.json").ToArray(),
+            ResumedUnits = context.ResumedUnits ?? [],
             Extra = new JsonObject
             {
                 ["sample_rate_hz"] = input.SampleRate,
@@ -114,24 +116,5 @@ public static class ResultsWriter
         ManifestWriter.Write(manifest, folder.PathOf("manifest.json"));
         folder.Commit();
         return folder.TargetPath;
-    }
-
-    private static IEnumerable<string> InputFiles(Plan plan, LoadedInput input)
-    {
-        var files = new List<string>();
-        if (File.Exists(plan.Source)) files.Add(plan.Source);
-        files.Add(plan.Recording);
-        if (plan.Events is not null) files.Add(plan.Events);
-        if (plan.Epochs is not null) files.Add(plan.Epochs.LabelsFile);
-        var sidecars = RecordingSidecars(plan.Recording);
-        files.AddRange(sidecars);
-        return files.Distinct(StringComparer.Ordinal);
-    }
-
-    private static IEnumerable<string> RecordingSidecars(string recording)
-    {
-        if (Path.GetExtension(recording).Equals(".npy", StringComparison.OrdinalIgnoreCase)) return [];
-        var s = Formats.RecordingSidecars.FindBesides(recording);
-        return new[] { s.Events, s.Channels, s.Electrodes }.OfType<string>();
     }
 }

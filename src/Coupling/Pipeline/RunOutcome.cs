@@ -9,5 +9,6 @@ namespace Coupling.Pipeline;
 /// <param name="Warnings">Warnings about the analysis, also in the report.</param>
 /// <param name="Elapsed">Wall-clock time of the run.</param>
 /// <param name="Contrasts">The tested condition differences (empty when the plan has no contrasts).</param>
+/// <param name="ResumedUnits">Work units loaded from an interrupted earlier run rather than computed; null or empty for none.</param>
 public sealed record RunOutcome(string OutputFolder, IReadOnlyList<PairResult> Results, IReadOnlyList<ConditionSummary> Conditions, IReadOnlyList<string> Warnings, TimeSpan Elapsed,
-    IReadOnlyList<ContrastPairResult> Contrasts);
+    IReadOnlyList<ContrastPairResult> Contrasts, IReadOnlyList<string>? ResumedUnits = null);

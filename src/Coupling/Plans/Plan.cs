@@ -63,6 +63,12 @@ public sealed record Plan
     /// <summary>Results folder (created whole when the run succeeds).</summary>
     public required string Output { get; init; }
 
+    /// <summary>
+    /// Whether an earlier results folder of this tool at <see cref="Output"/> may be replaced (plan key <c>overwrite</c>, or
+    /// <c>--force</c>); a folder holding anything the tool did not write is never replaced.
+    /// </summary>
+    public bool Overwrite { get; init; }
+
     /// <summary>Whether PNG figures are drawn.</summary>
     public bool Figures { get; init; } = true;
 

@@ -18,8 +18,14 @@ public static class PlanReader
     [
         "recording", "events", "channels", "sample_rate", "epochs", "conditions", "trial", "window", "evoked",
         "bands", "decomposition", "measures", "surrogates", "seed", "correction", "output", "figures", "threads",
-        "contrasts",
+        "contrasts", "overwrite",
     ];
+
+    /// <summary>Fewest surrogate draws the <c>surrogates</c> key allows.</summary>
+    public const int MinSurrogates = 1;
+
+    /// <summary>Most surrogate draws the <c>surrogates</c> key allows.</summary>
+    public const int MaxSurrogates = 1_000_000;
 
     /// <summary>Reads the plan at <paramref name="path"/>; relative paths inside it are taken from the plan's folder.</summary>
     public static Plan Read(string path)
@@ -92,7 +98,7 @@ public static class PlanReader
             : new DecompositionSpec("fir-hilbert", null, null, null, null);
         var measures = ReadMeasures(ctx, ctx.Required(map, root, "measures", "the plan"));
 
-        int surrogates = map.TryGetValue("surrogates", out var su) ? ctx.Int(su, "surrogates", 1, 1_000_000) : 1000;
+        int surrogates = map.TryGetValue("surrogates", out var su) ? ctx.Int(su, "surrogates", MinSurrogates, MaxSurrogates) : 1000;
         ulong seed = 0;
         if (map.TryGetValue("seed", out var se))
         {
@@ -107,6 +113,7 @@ public static class PlanReader
 
         string output = ctx.Path(ctx.Required(map, root, "output", "the plan"), "output");
         bool figures = !map.TryGetValue("figures", out var fi) || ctx.Bool(fi, "figures");
+        bool overwrite = map.TryGetValue("overwrite", out var ow) && ctx.Bool(ow, "overwrite");
         int threads = map.TryGetValue("threads", out var th) ? ctx.Int(th, "threads", 0, 4096) : 0;
 
         return new Plan
@@ -130,6 +137,7 @@ public static class PlanReader
             Q = q,
             Output = output,
             Figures = figures,
+            Overwrite = overwrite,
             Threads = threads,
         };
     }

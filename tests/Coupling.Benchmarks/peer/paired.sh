@@ -5,13 +5,17 @@
 # with [plv, wpli, coherence, aec]), so a change in the machine's load hits all of them; the summary gives each
 # command's median wall time and the median (min, max) of the per-round ratios array route / tool.
 #
-#   tests/Coupling.Benchmarks/peer/paired.sh [-n ROUNDS] [DIR]      # default 5 rounds (after one warm-up), DIR /tmp/coupling-peer
+#   tests/Coupling.Benchmarks/peer/paired.sh [-n ROUNDS] [-w WARMUPS] [DIR]   # default 5 rounds after 1 warm-up round, DIR /tmp/coupling-peer
 #
 # Needs the .NET SDK and /usr/bin/python3 (Debian's). Installs python3-numpy and python3-scipy with apt-get when they
 # are missing, and libopenblas0-pthread (so numpy's matmul runs on an optimised BLAS rather than the reference one).
 set -euo pipefail
 rounds=5
-if [[ "${1:-}" == "-n" ]]; then rounds="$2"; shift 2; fi
+warmups=1
+while [[ "${1:-}" == -n || "${1:-}" == -w ]]; do
+    if [[ "$1" == -n ]]; then rounds="$2"; else warmups="$2"; fi
+    shift 2
+done
 dir="${1:-/tmp/coupling-peer}"
 here="$(cd "$(dirname "$0")" && pwd)"
 root="$(cd "$here/../../.." && pwd)"
@@ -36,13 +40,13 @@ commands=("array|$python $here/array_route.py compute $dir"
           "four|dotnet $tool run plan-four.yaml")
 times="$dir/paired-times.tsv"
 printf 'round\tcommand\twall_s\tuser_s\tsys_s\tpeak_kib\tload1\n' > "$times"
-for ((r = 0; r <= rounds; r++)); do
+for ((r = 1 - warmups; r <= rounds; r++)); do
     for ((i = 0; i < 3; i++)); do
-        entry="${commands[$(((i + r) % 3))]}"
+        entry="${commands[$(((i + r + 3 * warmups) % 3))]}"
         name="${entry%%|*}"
         load="$(cut -d' ' -f1 /proc/loadavg)"
         /usr/bin/time -f '%e\t%U\t%S\t%M' -o "$dir/.time" ${entry#*|} >"$dir/$name.out" 2>&1
-        # Round 0 is the warm-up (disk cache, first build of the runtime's native images); it is not counted.
+        # Warm-up rounds (r <= 0: disk cache, the runtime's first start) are not counted.
         ((r > 0)) && printf '%d\t%s\t%s\t%s\n' "$r" "$name" "$(tail -1 "$dir/.time")" "$load" >> "$times"
     done
 done
@@ -56,7 +60,7 @@ for r, name, w, u, s, peak, load in rows:
 names = {"array": "NumPy/SciPy route (PLV only)", "plv": "this tool, measures: [plv]",
          "four": "this tool, measures: [plv, wpli, coherence, aec]"}
 loads = [v[3] for d in wall.values() for v in d.values()]
-out = [f"Paired run, {sys.argv[3]} rounds after one warm-up, rotating order; 1-minute load average "
+out = [f"Paired run, {sys.argv[3]} rounds, rotating order; 1-minute load average "
        f"{min(loads):.1f}-{max(loads):.1f} at the starts.", "",
        "| command | wall median (min-max) | cpu (user+sys) median | peak resident | array route / this (median, min-max per round) |",
        "| --- | ---: | ---: | ---: | ---: |"]

@@ -22,7 +22,7 @@ public sealed class CommandLineTests
     public void Help_matches_the_approved_text()
     {
         var sb = new StringBuilder();
-        foreach (var args in new[] { new[] { "--help" }, ["demo", "--help"], ["run", "--help"], ["simulate", "--help"], ["inspect", "--help"] })
+        foreach (var args in new[] { new[] { "--help" }, ["demo", "--help"], ["run", "--help"], ["check", "--help"], ["simulate", "--help"], ["inspect", "--help"] })
         {
             var (code, output, err) = Run(args);
             Assert.Equal(0, code);

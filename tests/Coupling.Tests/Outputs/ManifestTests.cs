@@ -70,8 +70,8 @@ public class ManifestTests
         using var doc = JsonDocument.Parse(json);
         var names = doc.RootElement.EnumerateObject().Select(p => p.Name).ToArray();
         Assert.Equal(
-            ["tool", "started", "finished", "run_seconds", "command_line", "inputs", "plan", "seed", "decompositions",
-             "conditions", "time_steps", "outputs", "extra"], names);
+            ["format", "tool", "started", "finished", "run_seconds", "command_line", "inputs", "plan", "seed", "decompositions",
+             "conditions", "time_steps", "outputs", "resumed_units", "extra"], names);
         Assert.Contains("\n  \"tool\": {\n", json);
         Assert.Equal("2025-03-04T10:00:00+01:00", doc.RootElement.GetProperty("started").GetString()); // ISO 8601
         Assert.Equal(JsonValueKind.Object, doc.RootElement.GetProperty("plan").ValueKind);

@@ -1,4 +1,5 @@
 using Coupling.Outputs;
+using Coupling.Tests.Pipeline;
 
 namespace Coupling.Tests.Outputs;
 
@@ -39,31 +40,88 @@ public class OutputFolderTests
     public void A_failed_run_leaves_the_old_results_intact()
     {
         using var dir = new TempFolder();
-        Directory.CreateDirectory(dir["results"]);
-        File.WriteAllText(dir["results/old.csv"], "old");
+        WriteEarlierResults(dir["results"], "old.csv");
         Assert.Throws<InvalidDataException>((Action)(() =>
         {
-            using var output = OutputFolder.Begin(dir["results"]);
+            using var output = OutputFolder.Begin(dir["results"], replace: true);
             AtomicFile.WriteAllText(output.PathOf("new.csv"), "new");
             throw new InvalidDataException("simulated failure");
         }));
         Assert.Equal(["results"], dir.Entries());
-        Assert.Equal(["old.csv"], Directory.GetFiles(dir["results"]).Select(Path.GetFileName));
+        Assert.Equal(["manifest.json", "old.csv"], Directory.GetFiles(dir["results"]).Select(Path.GetFileName).Order(StringComparer.Ordinal));
+    }
+
+    /// <summary>An earlier results folder of this tool: a marked manifest listing every file.</summary>
+    private static void WriteEarlierResults(string folder, params string[] files)
+    {
+        Directory.CreateDirectory(folder);
+        foreach (var f in files)
+        {
+            Directory.CreateDirectory(Path.GetDirectoryName(Path.Combine(folder, f))!);
+            File.WriteAllText(Path.Combine(folder, f), "old " + f);
+        }
+        ManifestWriter.Write(new Manifest
+        {
+            Format = Manifest.ResultsFormat,
+            Tool = ToolInfo.Current(),
+            Started = DateTimeOffset.UnixEpoch,
+            Finished = DateTimeOffset.UnixEpoch,
+            Outputs = [.. files, "manifest.json"],
+        }, Path.Combine(folder, "manifest.json"));
     }
 
     [Fact]
-    public void A_successful_run_replaces_the_old_results_and_removes_them()
+    public void A_successful_run_replaces_earlier_results_when_asked_and_removes_them()
     {
         using var dir = new TempFolder();
-        Directory.CreateDirectory(dir["results"]);
-        File.WriteAllText(dir["results/old.csv"], "old");
-        using (var output = OutputFolder.Begin(dir["results"]))
+        WriteEarlierResults(dir["results"], "old.csv", "figures/old.png");
+        using (var output = OutputFolder.Begin(dir["results"], replace: true))
         {
             AtomicFile.WriteAllText(output.PathOf("new.csv"), "new");
             output.Commit();
         }
         Assert.Equal(["results"], dir.Entries());
-        Assert.Equal(["new.csv"], Directory.GetFiles(dir["results"]).Select(Path.GetFileName));
+        Assert.Equal(["new.csv"], Directory.GetFileSystemEntries(dir["results"]).Select(Path.GetFileName));
+    }
+
+    [Fact]
+    public void Earlier_results_are_not_replaced_unless_asked()
+    {
+        using var dir = new TempFolder();
+        WriteEarlierResults(dir["results"], "old.csv");
+        var e = Assert.Throws<InputException>(() => OutputFolder.Begin(dir["results"]));
+        Assert.Contains("--force", e.Message);
+        Assert.Equal("old old.csv", File.ReadAllText(dir["results/old.csv"]));
+        Assert.Equal(["results"], dir.Entries());
+    }
+
+    [Fact]
+    public void A_file_added_to_earlier_results_during_the_run_stops_the_commit_and_is_kept()
+    {
+        using var dir = new TempFolder();
+        WriteEarlierResults(dir["results"], "old.csv");
+        using (var output = OutputFolder.Begin(dir["results"], replace: true))
+        {
+            AtomicFile.WriteAllText(output.PathOf("new.csv"), "new");
+            File.WriteAllText(dir["results/added.txt"], "added while the run computed");
+            var e = Assert.Throws<InputException>(output.Commit);
+            Assert.Contains("added.txt", e.Message);
+        }
+        Assert.Equal(["results"], dir.Entries());
+        Assert.Equal("added while the run computed", File.ReadAllText(dir["results/added.txt"]));
+        Assert.Equal("old old.csv", File.ReadAllText(dir["results/old.csv"]));
+    }
+
+    [Fact]
+    public void A_folder_of_other_files_is_never_replaced_even_when_asked()
+    {
+        using var dir = new TempFolder();
+        Directory.CreateDirectory(dir["results"]);
+        File.WriteAllText(dir["results/mine.txt"], "mine");
+        var e = Assert.Throws<InputException>(() => OutputFolder.Begin(dir["results"], replace: true));
+        Assert.Contains("not a results folder of this tool", e.Message);
+        Assert.Equal(["results"], dir.Entries());
+        Assert.Equal("mine", File.ReadAllText(dir["results/mine.txt"]));
     }
 
     [Fact]
@@ -109,10 +167,42 @@ public class OutputFolderTests
         using var dir = new TempFolder();
         Directory.CreateDirectory(dir["results"]);
         Directory.CreateDirectory(dir[".results.tmp-0123456789ab"]);
-        Directory.CreateDirectory(dir[".results.old-0123456789ab"]);
+        File.WriteAllText(dir[".results.tmp-0123456789ab/" + OutputFolder.WorkingMarker], "");
+        File.WriteAllText(dir[".results.tmp-0123456789ab/edges.tsv"], "partial");
+        WriteEarlierResults(dir[".results.old-0123456789ab"], "edges.tsv");
         Directory.CreateDirectory(dir[".other.tmp-0123456789ab"]);
         Assert.Equal(2, OutputFolder.RemoveLeftovers(dir["results"]));
         Assert.Equal([".other.tmp-0123456789ab", "results"], dir.Entries());
+    }
+
+    [Fact]
+    public void Folders_that_only_look_like_leftovers_are_never_touched()
+    {
+        using var dir = new TempFolder();
+        // no marker: not made by this class
+        Directory.CreateDirectory(dir[".results.tmp-0123456789ab"]);
+        File.WriteAllText(dir[".results.tmp-0123456789ab/mine.txt"], "mine");
+        // not 12 hex digits
+        Directory.CreateDirectory(dir[".results.tmp-mine"]);
+        File.WriteAllText(dir[".results.tmp-mine/" + OutputFolder.WorkingMarker], "");
+        // set aside earlier results that hold a file the manifest does not list
+        WriteEarlierResults(dir[".results.old-0123456789ab"], "edges.tsv");
+        File.WriteAllText(dir[".results.old-0123456789ab/mine.txt"], "mine");
+        // no manifest at all
+        Directory.CreateDirectory(dir[".results.old-ba9876543210"]);
+        File.WriteAllText(dir[".results.old-ba9876543210/mine.txt"], "mine");
+        // a link that looks like a working folder, pointing at user files
+        Directory.CreateDirectory(dir["data"]);
+        File.WriteAllText(dir["data/" + OutputFolder.WorkingMarker], "");
+        File.WriteAllText(dir["data/rec.edf"], "recording");
+        Directory.CreateSymbolicLink(dir[".results.tmp-aaaaaaaaaaaa"], dir["data"]);
+        Directory.CreateDirectory(dir["results"]);
+        var snapshot = FolderSnapshot.Take(dir.Path);
+        var entries = dir.Entries();
+
+        Assert.Equal(0, OutputFolder.RemoveLeftovers(dir["results"]));
+        Assert.Equal(entries, dir.Entries());
+        snapshot.AssertAllStillThere();
     }
 
     [Fact]
@@ -120,10 +210,10 @@ public class OutputFolderTests
     {
         using var dir = new TempFolder();
         Directory.CreateDirectory(dir[".results.tmp-0123456789ab"]);
-        Directory.CreateDirectory(dir[".results.old-0123456789ab"]);
-        File.WriteAllText(Path.Combine(dir[".results.old-0123456789ab"], "edges.tsv"), "earlier");
+        File.WriteAllText(dir[".results.tmp-0123456789ab/" + OutputFolder.WorkingMarker], "");
+        WriteEarlierResults(dir[".results.old-0123456789ab"], "edges.tsv");
         OutputFolder.RemoveLeftovers(dir["results"]);
         Assert.Equal(["results"], dir.Entries());
-        Assert.Equal("earlier", File.ReadAllText(Path.Combine(dir["results"], "edges.tsv")));
+        Assert.Equal("old edges.tsv", File.ReadAllText(Path.Combine(dir["results"], "edges.tsv")));
     }
 }

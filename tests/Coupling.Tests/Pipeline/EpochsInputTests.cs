@@ -37,7 +37,8 @@ public sealed class EpochsInputTests
         File.WriteAllLines(folder["labels.txt"], onsets.Select(_ => "go"));
         string plan = SmallStudy.PlanText(channels: channels)
             .Replace("recording: rec.csv", "recording: epochs.npy")
-            .Replace("events: rec_events.tsv", "epochs: { first_sample_time: -2.5, labels: labels.txt, channel_labels: [A, B, C, D] }");
+            .Replace("events: rec_events.tsv", "epochs: { first_sample_time: -2.5, labels: labels.txt, channel_labels: [A, B, C, D] }")
+            .Replace("output: results", "output: results-epochs");
         File.WriteAllText(folder["plan.yaml"], plan);
         var epochs = AnalysisRunner.Run(PlanReader.Read(folder["plan.yaml"]));
 

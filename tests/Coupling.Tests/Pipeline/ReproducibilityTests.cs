@@ -9,7 +9,7 @@ public sealed class ReproducibilityTests
     private static byte[] Edges(string folder, int threads)
     {
         string plan = Path.Combine(folder, "plan.yaml");
-        File.WriteAllText(plan, SmallStudy.PlanText(surrogates: 50, threads: threads));
+        File.WriteAllText(plan, SmallStudy.PlanText(surrogates: 50, threads: threads) + "\noverwrite: true\n");
         var outcome = AnalysisRunner.Run(PlanReader.Read(plan));
         return File.ReadAllBytes(Path.Combine(outcome.OutputFolder, "edges.tsv"));
     }
@@ -36,7 +36,7 @@ public sealed class ReproducibilityTests
         using var folder = new TempFolder();
         SmallStudy.WriteRecording(folder.Path);
         byte[] first = Edges(folder.Path, threads: 1);
-        File.WriteAllText(Path.Combine(folder.Path, "plan.yaml"), SmallStudy.PlanText(surrogates: 50).Replace("seed: 42", "seed: 43"));
+        File.WriteAllText(Path.Combine(folder.Path, "plan.yaml"), SmallStudy.PlanText(surrogates: 50).Replace("seed: 42", "seed: 43") + "\noverwrite: true\n");
         var outcome = AnalysisRunner.Run(PlanReader.Read(Path.Combine(folder.Path, "plan.yaml")));
         Assert.NotEqual(first, File.ReadAllBytes(Path.Combine(outcome.OutputFolder, "edges.tsv")));
     }
@@ -45,7 +45,7 @@ public sealed class ReproducibilityTests
     {
         string plan = Path.Combine(folder, "plan.yaml");
         File.WriteAllText(plan, SmallStudy.PlanText(surrogates: 50, threads: threads, conditions: "{ go: [go], stop: [stop] }")
-            + "\ncontrasts: [[go, stop]]\n");
+            + "\ncontrasts: [[go, stop]]\noverwrite: true\n");
         var outcome = AnalysisRunner.Run(PlanReader.Read(plan));
         return File.ReadAllBytes(Path.Combine(outcome.OutputFolder, "contrasts.tsv"));
     }

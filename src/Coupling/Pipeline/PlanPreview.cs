@@ -1,0 +1,29 @@
+namespace Coupling.Pipeline;
+
+/// <summary>What a run of a plan would do, found without computing anything (see <see cref="PlanCheck"/>).</summary>
+/// <param name="Plan">The plan file.</param>
+/// <param name="Recording">The recording.</param>
+/// <param name="SampleRate">Sampling rate in Hz.</param>
+/// <param name="Channels">Channels analysed, in result order.</param>
+/// <param name="Conditions">Trials each condition would keep (dropped trials are counted at the run).</param>
+/// <param name="Bands">Per band: decomposition, kernel length, padding and time step.</param>
+/// <param name="WorkUnits">The work units of the run (condition x band, then contrast x band), as the manifest names them.</param>
+/// <param name="KeptUnits">Work units an interrupted earlier run kept that the run would load rather than compute.</param>
+/// <param name="Surrogates">Surrogate draws per unit.</param>
+/// <param name="Pairs">Channel pairs per table.</param>
+/// <param name="SurrogatesForOneDiscovery">Fewest surrogates with which a single coupled pair can pass the correction,
+/// ⌈pairs / q⌉ − 1 (its smallest p, 1/(M + 1), must reach q / pairs).</param>
+/// <param name="Output">The results folder.</param>
+public sealed record PlanPreview(
+    string Plan,
+    string Recording,
+    double SampleRate,
+    IReadOnlyList<string> Channels,
+    IReadOnlyList<ConditionSummary> Conditions,
+    IReadOnlyList<BandPreview> Bands,
+    IReadOnlyList<string> WorkUnits,
+    IReadOnlyList<string> KeptUnits,
+    int Surrogates,
+    int Pairs,
+    int SurrogatesForOneDiscovery,
+    string Output);
