@@ -8,7 +8,7 @@ Workload: 32 channels x 100 trials x 1000 samples at 500 Hz, one band (8-12 Hz),
 
 * zero-phase FIR band-pass, forward and backward (the filtfilt response |H|^2) on even-reflected padding of one filter
   length per side, done in the frequency domain over the whole trials x channels x samples array at once;
-  Kaiser-window design as scipy.signal.kaiserord / firwin (60 dB, 2 Hz transition), the same taps as the tool;
+  Kaiser-window design by scipy.signal.kaiserord / firwin (60 dB, 2 Hz transition), the tool's specification;
 * analytic signal by FFT (Marple 1999; the definition of scipy.signal.hilbert), fused with the filter in the same
   transform, padding cut off afterwards;
 * unit phasors laid out time x channels x trials; the cross sums of all pairs at every time point as one batched
