@@ -11,14 +11,19 @@ internal sealed class BarProgress : IProgress<RunProgress>
 {
     private readonly object _gate = new();
     private readonly ProgressContext _context;
+    private readonly IAnsiConsole _console;
     private readonly HashSet<string> _past = new(StringComparer.Ordinal);
     private ProgressTask? _task;
     private string? _key;
 
-    private BarProgress(ProgressContext context) => _context = context;
+    private BarProgress(ProgressContext context, IAnsiConsole console)
+    {
+        _context = context;
+        _console = console;
+    }
 
     /// <summary>Runs <paramref name="work"/> with bars drawn on <paramref name="terminal"/> until it returns.</summary>
-    public static T Show<T>(TextWriter terminal, Func<IProgress<RunProgress>, T> work)
+    public static T Show<T>(TextWriter terminal, Func<BarProgress, T> work)
     {
         var console = AnsiConsole.Create(new AnsiConsoleSettings
         {
@@ -32,7 +37,13 @@ internal sealed class BarProgress : IProgress<RunProgress>
             .HideCompleted(true)
             .Columns(new TaskDescriptionColumn { Alignment = Justify.Left }, new ProgressBarColumn(), new PercentageColumn(),
                 new ElapsedTimeColumn(), new RemainingTimeColumn(), new SpinnerColumn())
-            .Start(context => work(new BarProgress(context)));
+            .Start(context => work(new BarProgress(context, console)));
+    }
+
+    /// <summary>Writes a line of text above the bars (a warning), without disturbing them.</summary>
+    public void WriteLine(string line)
+    {
+        lock (_gate) _console.WriteLine(line);
     }
 
     public void Report(RunProgress value)

@@ -8,8 +8,10 @@ namespace Coupling.Cli;
 public static class CommandLine
 {
     /// <summary>
-    /// Runs the program with <paramref name="args"/>; returns the process exit code: 0 on success, 2 for a usage error
-    /// or input the program cannot use, 3 when a file cannot be read or written.
+    /// Runs the program with <paramref name="args"/>; returns the process exit code: 0 on success; 2 for anything wrong
+    /// with what the user gave (the command line, the plan, or a file it names: missing, malformed or unusable); 3 when
+    /// the system refuses or fails to read or write a file or folder that is there to use (permission, disk full,
+    /// device error); 130 when stopped; 1 for an internal error.
     /// </summary>
     public static int Run(string[] args, TextWriter output, TextWriter error)
     {
@@ -18,7 +20,7 @@ public static class CommandLine
         if (parsed.Errors.Count > 0)
         {
             string command = parsed.CommandResult.Command == root ? "coupling" : $"coupling {parsed.CommandResult.Command.Name}";
-            error.WriteLine($"coupling: {string.Join(" ", parsed.Errors.Select(e => OneLine(e.Message)))} (see '{command} --help')");
+            error.WriteLine($"coupling: {UsageErrors.Describe(parsed)} (see '{command} --help')");
             return 2;
         }
         try
@@ -30,14 +32,16 @@ public static class CommandLine
             error.WriteLine($"coupling: {OneLine(e.Message)}");
             return 2;
         }
-        catch (IOException e)
+        catch (FileAccessException e)
         {
             error.WriteLine($"coupling: {OneLine(e.Message)}");
             return 3;
         }
-        catch (UnauthorizedAccessException e)
+        catch (Exception e) when (e is IOException or UnauthorizedAccessException)
         {
-            error.WriteLine($"coupling: {OneLine(e.Message)}");
+            // The library names the file in a FileAccessException; anything else must not show the system's own text
+            // (which can name a hidden temporary folder).
+            error.WriteLine($"coupling: a file or folder could not be read or written ({FileErrors.Reason(e)}).");
             return 3;
         }
         catch (OperationCanceledException)
@@ -73,7 +77,7 @@ public static class CommandLine
         var verbose = new Option<bool>("--verbose", "-v") { Description = "Print what will run before it starts, and progress lines with times and estimates." };
 
         var demoOut = new Option<DirectoryInfo>("--output", "-o") { Description = "Folder for the demo's data and results.", DefaultValueFactory = _ => new DirectoryInfo("coupling-demo") };
-        var demoSurrogates = new Option<int?>("--surrogates") { Description = "Surrogate draws per condition and band (default: the demo plan's)." };
+        var demoSurrogates = new Option<int?>("--surrogates") { Description = "Surrogate draws per condition and band (default: the demo plan's; 0: values without a test)." };
         var demo = new Command("demo", "Simulate the built-in scenario with known ground truth, analyse it end to end and check the result against the truth.")
         {
             demoOut, demoSurrogates, threads, scenarioForce, quiet, verbose,

@@ -12,7 +12,7 @@ internal static class Commands
     public static int Demo(string folder, int? surrogates, int threads, bool force, Verbosity verbosity, TextWriter output, TextWriter error)
     {
         if (surrogates is { } n && (n < PlanReader.MinSurrogates || n > PlanReader.MaxSurrogates))
-            throw new InputException($"--surrogates: {n} is not a whole number from {PlanReader.MinSurrogates} to {PlanReader.MaxSurrogates}.");
+            throw new InputException($"--surrogates: {n} is not a whole number from {PlanReader.MinSurrogates} to {PlanReader.MaxSurrogates} (0: values without a test).");
         ScenarioFolder.Check(folder, force);
         if (verbosity != Verbosity.Quiet) output.WriteLine($"Simulating the demo scenario into {folder} ...");
         var paths = ScenarioFiles.Write(folder, new ScenarioOptions { Seed = ScenarioFiles.DefaultSeed },
@@ -63,6 +63,7 @@ internal static class Commands
 
     public static int Simulate(string folder, int seed, int? trials, bool force, TextWriter output)
     {
+        if (trials is < 2) throw new InputException($"--trials: {trials} is too few; expected at least 2 trials per condition.");
         ScenarioFolder.Check(folder, force);
         var options = new ScenarioOptions { Seed = seed };
         if (trials is { } n) options = options with { TrialsPerCondition = n };
@@ -76,15 +77,28 @@ internal static class Commands
     public static int Inspect(string file, double? rate, TextWriter output)
     {
         if (!File.Exists(file)) throw new InputException($"{file}: file not found.");
+        if (rate is { } r && !(r > 0 && double.IsFinite(r))) throw new InputException($"--rate: {r} is not a positive number of Hz.");
         string ext = Path.GetExtension(file).ToLowerInvariant();
-        RecordingSummary summary = ext switch
+        RecordingSummary? summary = ext switch
         {
             ".edf" => RecordingSummary.Describe(EdfReader.ReadHeader(file), EdfReader.ReadEvents(file))
                 .WithSidecars(RecordingSidecars.FindBesides(file)),
-            ".csv" => RecordingSummary.Describe(CsvRecording.Read(file, rate ?? throw new InputException($"{file}: a CSV file carries no sampling rate; give --rate in Hz.")), "CSV"),
-            ".npy" => throw new InputException($"{file}: an NPY array holds no channel names or rate; use it through a plan with 'epochs' and 'sample_rate'. Its shape: ({string.Join(", ", NpyArray.Read(file).Shape)})."),
+            ".csv" => RecordingSummary.Describe(CsvRecording.Read(file, rate ?? throw new InputException($"{file}: a CSV file carries no sampling rate; give --rate in Hz.")), "CSV")
+                .WithSidecars(RecordingSidecars.FindBesides(file)),
+            ".npy" => null,
             _ => throw new InputException($"{file}: unknown extension '{ext}'; expected .edf, .csv or .npy."),
         };
+        if (summary is null)
+        {
+            var (shape, dtype, fortran) = NpyArray.ReadHeader(file);
+            output.WriteLine($"file: {file}");
+            output.WriteLine($"format: NPY array, dtype {dtype}, {(fortran ? "Fortran" : "C")} order");
+            output.WriteLine($"shape: ({string.Join(", ", shape)})");
+            output.WriteLine(shape.Count == 3
+                ? $"as epochs: {shape[0]} trials x {shape[1]} channels x {shape[2]} samples; analyse it through a plan with 'sample_rate' and 'epochs' (first_sample_time, labels, channel_labels)."
+                : $"an epochs array needs 3 dimensions (trials x channels x samples); this one has {shape.Count}.");
+            return 0;
+        }
         foreach (var line in summary.Format()) output.WriteLine(line);
         return 0;
     }
@@ -96,10 +110,15 @@ internal static class Commands
         Console.CancelKeyPress += onCancel;
         try
         {
-            RunOutcome Work(IProgress<RunProgress>? progress) => AnalysisRunner.Run(plan, progress, threads, commandLine, stop.Token, restart);
-            if (verbosity == Verbosity.Quiet) return Work(null);
+            // Warnings arrive once the input is checked, before the long computation; --quiet leaves them for the summary.
+            if (verbosity == Verbosity.Quiet)
+                return AnalysisRunner.Run(plan, null, threads, commandLine, stop.Token, restart);
+            void Warn(string warning) => error.WriteLine($"coupling: warning: {warning}");
             bool terminal = ReferenceEquals(error, Console.Error) && !Console.IsErrorRedirected;
-            return terminal ? BarProgress.Show(error, Work) : Work(new PlainProgress(error, verbosity == Verbosity.Verbose));
+            return terminal
+                ? BarProgress.Show(error, bars => AnalysisRunner.Run(plan, bars, threads, commandLine, stop.Token, restart,
+                    w => bars.WriteLine($"coupling: warning: {w}")))
+                : AnalysisRunner.Run(plan, new PlainProgress(error, verbosity == Verbosity.Verbose), threads, commandLine, stop.Token, restart, Warn);
         }
         finally
         {
@@ -140,14 +159,15 @@ internal static class Commands
         }
         output.WriteLine($"  report:   {Path.Combine(outcome.OutputFolder, "report.md")}");
         output.WriteLine($"  edges:    {Path.Combine(outcome.OutputFolder, "edges.tsv")}");
-        if (plan.Figures) output.WriteLine($"  figures:  {Path.Combine(outcome.OutputFolder, "figures")}");
+        if (Directory.Exists(Path.Combine(outcome.OutputFolder, "figures")))
+            output.WriteLine($"  figures:  {Path.Combine(outcome.OutputFolder, "figures")}");
         if (outcome.Contrasts.Count > 0)
             output.WriteLine($"  contrasts: {Path.Combine(outcome.OutputFolder, "contrasts.tsv")}");
         foreach (var c in outcome.Conditions)
             output.WriteLine($"  {c.Condition}: {c.Trials} trials{(c.Dropped.Count > 0 ? $", {c.Dropped.Count} dropped (listed in the manifest)" : "")}");
         if (outcome.ResumedUnits is { Count: > 0 } resumed)
             output.WriteLine($"  resumed: {resumed.Count} work unit(s) loaded from the interrupted earlier run ({string.Join("; ", resumed)})");
-        foreach (var w in outcome.Warnings) output.WriteLine($"  warning: {w}");
+        if (outcome.Warnings.Count > 0) output.WriteLine($"  {outcome.Warnings.Count} warning(s), shown before the computation and in the report");
         output.WriteLine($"  {outcome.Results.Sum(r => r.Significant.Count(s => s))} significant pairs in {outcome.Results.Count} tables; {outcome.Elapsed.TotalSeconds:0.0} s");
     }
 }

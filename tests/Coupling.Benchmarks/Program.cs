@@ -3,8 +3,8 @@ using Coupling.Benchmarks;
 
 // Entry point: "w1 [--channels N] [--trials N] [--draws N] [--conditions N] [--threads N] [--step K]" times the
 // reference workload end to end; "kernels [...]" times each kernel group; "precision PLAN [--draws N]" compares
-// single-precision storage with double; "stages PLAN [--threads N]" times each stage of a plan's analysis; anything
-// else goes to BenchmarkDotNet.
+// single-precision storage with double; "figures [--channels N] [--repeats N]" times figure drawing and writing;
+// "stages PLAN [--threads N]" times each stage of a plan's analysis; anything else goes to BenchmarkDotNet.
 if (args.Length > 1 && args[0] == "stages")
 {
     int i = Array.IndexOf(args, "--threads");
@@ -17,7 +17,7 @@ if (args.Length > 1 && args[0] == "precision")
     Precision.Run(args[1], i > 0 ? int.Parse(args[i + 1], System.Globalization.CultureInfo.InvariantCulture) : 1000, Console.Out);
     return 0;
 }
-if (args.Length > 0 && (args[0] == "w1" || args[0] == "kernels"))
+if (args.Length > 0 && (args[0] == "w1" || args[0] == "kernels" || args[0] == "figures"))
 {
     int Option(string name, int fallback)
     {
@@ -28,6 +28,8 @@ if (args.Length > 0 && (args[0] == "w1" || args[0] == "kernels"))
     if (args[0] == "w1")
         EndToEnd.Run(Option("channels", 64), Option("trials", 100), Option("draws", 1000), Option("conditions", 2),
             Option("threads", 0), step, Console.Out);
+    else if (args[0] == "figures")
+        FigureTiming.Run(Option("channels", 10), Option("repeats", 9), Console.Out);
     else
         KernelTiming.Run(Option("channels", 64), Option("trials", 100), Option("times", 64), Option("repeats", 7), Console.Out);
     return 0;

@@ -3,36 +3,47 @@ using ScottPlot;
 namespace Coupling.Figures;
 
 /// <summary>
-/// The colour scale of network edges: the upper part of a sequential map (so the weakest edge is still visible
-/// on white) over [smallest, largest] drawn weight. Serves as the source of the figure's colour bar.
+/// The colour scale of network edges, also the source of the figure's colour bar: |value| from 0 to a round top on
+/// <see cref="FigureColours.EdgeMagnitude"/>, or signed values from -top to top on <see cref="FigureColours.EdgeSigned"/>.
 /// </summary>
 internal sealed class EdgeColorScale : IHasColorAxis
 {
-    private readonly double _low;
-    private readonly double _high;
-
-    public EdgeColorScale(IColormap baseMap, double from, double low, double high)
+    private EdgeColorScale(IColormap map, double low, double high, bool signed)
     {
-        Colormap = new Tail(baseMap, from);
-        _low = low;
-        _high = high;
+        Colormap = map;
+        Low = low;
+        High = high;
+        Signed = signed;
+    }
+
+    /// <summary>|value| from 0 to <see cref="FigureStyle.NiceCeiling"/>(<paramref name="largest"/>).</summary>
+    public static EdgeColorScale Magnitude(double largest) =>
+        new(FigureColours.EdgeMagnitude, 0, FigureStyle.NiceCeiling(largest), false);
+
+    /// <summary>Signed values, symmetric about 0 up to <see cref="FigureStyle.NiceCeiling"/>(<paramref name="largest"/>).</summary>
+    public static EdgeColorScale Diverging(double largest)
+    {
+        double top = FigureStyle.NiceCeiling(largest);
+        return new(FigureColours.EdgeSigned, -top, top, true);
     }
 
     public IColormap Colormap { get; set; }
 
-    public ScottPlot.Range GetRange() => new(_low, _high);
+    /// <summary>Lower end of the scale.</summary>
+    public double Low { get; }
 
-    /// <summary>Colour of an edge of weight <paramref name="weight"/>.</summary>
-    public Color ColorOf(double weight) => Colormap.GetColor(Fraction(weight));
+    /// <summary>Upper end of the scale.</summary>
+    public double High { get; }
 
-    /// <summary>Where <paramref name="weight"/> lies between the scale's ends, 0 to 1.</summary>
-    public double Fraction(double weight) => Math.Clamp((weight - _low) / (_high - _low), 0, 1);
+    /// <summary>Whether the scale is signed (diverging) rather than of |value|.</summary>
+    public bool Signed { get; }
 
-    /// <summary>The part of <c>inner</c> from <c>from</c> to 1, stretched over 0..1.</summary>
-    private sealed class Tail(IColormap inner, double from) : IColormap
-    {
-        public string Name => $"{inner.Name} (from {from:0.##})";
+    public ScottPlot.Range GetRange() => new(Low, High);
 
-        public Color GetColor(double position) => inner.GetColor(from + (1 - from) * Math.Clamp(position, 0, 1));
-    }
+    /// <summary>Colour of an edge of value <paramref name="value"/> (|value| on a magnitude scale).</summary>
+    public Color ColorOf(double value) =>
+        Colormap.GetColor(Math.Clamp(((Signed ? value : Math.Abs(value)) - Low) / (High - Low), 0, 1));
+
+    /// <summary>|value| as a share of the scale's top, 0 to 1: the edge's width.</summary>
+    public double Strength(double value) => Math.Clamp(Math.Abs(value) / High, 0, 1);
 }

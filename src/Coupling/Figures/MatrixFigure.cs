@@ -4,89 +4,72 @@ using ScottPlot;
 
 namespace Coupling.Figures;
 
-/// <summary>Draws a result's channel x channel value matrix as a PNG heatmap.</summary>
+/// <summary>Draws a result's channel x channel value matrix as a heatmap (PNG and/or SVG).</summary>
 /// <remarks>
 /// Row a, column b shows pair (a, b), first channel at the top left; the lower triangle mirrors the upper one
-/// (negated for antisymmetric measures, as in the CSV matrices). Significant pairs are drawn at full colour
-/// with a centred dot (up to 48 channels); pairs that are not significant are faded to a quarter of their opacity over the
-/// white background; the diagonal and NaN values are left white. Colours: the perceptually uniform Viridis
-/// map (van der Walt S, Smith N, 2015, matplotlib) from 0 to the largest value for non-negative measures, and
-/// the diverging cmocean Balance map (Thyng KM et al., 2016, Oceanography 29(3):9-13), symmetric about zero,
-/// for signed ones.
+/// (negated for antisymmetric measures, as in the CSV matrices). Every cell is drawn at full colour, significant or
+/// not; a significant pair carries an outline (a dark line with a light line inside, visible on any colour). The
+/// diagonal and NaN values are left white. Colours (<see cref="FigureColours"/>): Viridis from 0 to a round top above
+/// the largest value for measures that are never negative, and the diverging Balance map, symmetric about zero, for
+/// signed ones. The colour bar has a few round ticks and the measure as its title.
 /// </remarks>
 public static class MatrixFigure
 {
-    /// <summary>Opacity of cells that are not significant (0-255).</summary>
-    private const byte FadedAlpha = 64;
-
-    /// <summary>Above this many channels the cells are too small for dots; fading alone marks them.</summary>
-    private const int MaxMarkedChannels = 48;
-
-    /// <summary>Relative luminance (ITU-R BT.709 weights on the 8-bit channels, no linearisation: enough to pick a dot colour).</summary>
-    private static double Luminance(Color c) => (0.2126 * c.R + 0.7152 * c.G + 0.0722 * c.B) / 255.0;
-
-    /// <summary>Writes the heatmap of <paramref name="result"/> to <paramref name="path"/> as a PNG.</summary>
+    /// <summary>Writes the heatmap of <paramref name="result"/> to <paramref name="path"/> (.png or .svg).</summary>
     /// <param name="result">The result to draw.</param>
-    /// <param name="path">Output PNG path; written atomically.</param>
+    /// <param name="path">Output path; its extension (.png or .svg) picks the format; written atomically.</param>
     /// <param name="width">Image width in pixels (at least 200).</param>
     /// <param name="height">Image height in pixels (at least 200).</param>
     /// <param name="valueLabel">What the values are, for the colour scale (default: the measure key).</param>
-    public static void Save(PairResult result, string path, int width = 900, int height = 800, string? valueLabel = null)
+    public static void Save(PairResult result, string path, int width = 900, int height = 800, string? valueLabel = null) =>
+        Save(result, [path], width, height, valueLabel);
+
+    /// <summary>Draws <paramref name="result"/> once and writes it to every path (.png or .svg each).</summary>
+    /// <param name="result">The result to draw.</param>
+    /// <param name="paths">Output paths, each written atomically in the format of its extension.</param>
+    /// <param name="width">Image width in pixels (at least 200).</param>
+    /// <param name="height">Image height in pixels (at least 200).</param>
+    /// <param name="valueLabel">What the values are, for the colour scale (default: the measure key).</param>
+    public static void Save(PairResult result, IReadOnlyList<string> paths, int width = 900, int height = 800, string? valueLabel = null)
+    {
+        FigureStyle.CheckSize(width, height);
+        using var plot = Build(result, width, valueLabel);
+        FigureStyle.Save(plot, paths, width, height);
+    }
+
+    /// <summary>The figure of <paramref name="result"/>; cell (a, b) is centred at x = b, y = n - 1 - a.</summary>
+    internal static Plot Build(PairResult result, int width, string? valueLabel)
     {
         PairResultShape.Check(result);
         int n = result.Channels.Count;
         if (n < 2) throw new ArgumentException($"Result {result.Condition}/{result.Band}/{result.Measure} has fewer than two channels.");
-        using var plot = FigureStyle.NewPlot();
+        var plot = FigureStyle.NewPlot();
 
         var values = PairResultShape.Matrix(result.Value, n, MeasureSymmetry.IsAntisymmetric(result.Measure));
-        var significant = new bool[n, n];
+        var finite = result.Value.Where(double.IsFinite).ToArray();
+        bool signed = FigureStyle.IsSigned(result.Measure, finite);
+        double top = FigureStyle.NiceCeiling(finite.Length == 0 ? 1 : finite.Max(Math.Abs));
+
+        var heatmap = plot.Add.Heatmap(values);
+        heatmap.Colormap = signed ? FigureColours.Signed : FigureColours.Magnitude;
+        heatmap.ManualRange = signed ? new ScottPlot.Range(-top, top) : new ScottPlot.Range(0, top);
+        heatmap.NaNCellColor = Colors.White;
+        heatmap.Position = new CoordinateRect(0, n - 1, 0, n - 1); // centres of the corner cells (CellAlignment MiddleCenter)
+
+        // Outline of each significant cell (row a is drawn at y = n - 1 - a): dark outside, light inside.
+        float cellPixels = (float)(Math.Min(width, 900) - 160) / n;
+        float line = Math.Clamp(cellPixels / 14, 1f, 3f);
+        int shown = 0;
         for (int k = 0; k < result.Significant.Length; k++)
         {
             if (!result.Significant[k]) continue;
+            shown++;
             var (a, b) = Measures.PairIndex.Channels(k, n);
-            significant[a, b] = significant[b, a] = true;
+            Outline(plot, b, n - 1 - a, line);
+            Outline(plot, a, n - 1 - b, line);
         }
 
-        var finite = result.Value.Where(double.IsFinite).ToArray();
-        bool signed = FigureStyle.IsSigned(result.Measure, finite);
-        double top = finite.Length == 0 ? 1 : finite.Max(Math.Abs);
-        if (top == 0) top = 1;
-
-        var alpha = new byte[n, n];
-        for (int a = 0; a < n; a++)
-            for (int b = 0; b < n; b++)
-                alpha[a, b] = a == b || significant[a, b] ? (byte)255 : FadedAlpha;
-
-        var heatmap = plot.Add.Heatmap(values);
-        heatmap.Colormap = signed ? new ScottPlot.Colormaps.Balance() : new ScottPlot.Colormaps.Viridis();
-        heatmap.ManualRange = signed ? new ScottPlot.Range(-top, top) : new ScottPlot.Range(0, top);
-        heatmap.NaNCellColor = Colors.White;
-        heatmap.AlphaMap = alpha;
-        heatmap.Position = new CoordinateRect(0, n - 1, 0, n - 1); // centres of the corner cells (CellAlignment MiddleCenter)
-
-        // A dot marks each significant cell (row a is drawn at y = n - 1 - a), in white or ink for contrast.
-        if (n <= MaxMarkedChannels)
-        {
-            float dot = (float)Math.Clamp(240.0 / n, 3, 12);
-            var light = new List<Coordinates>();
-            var dark = new List<Coordinates>();
-            var range = heatmap.ManualRange!.Value;
-            for (int a = 0; a < n; a++)
-                for (int b = 0; b < n; b++)
-                {
-                    if (!significant[a, b]) continue;
-                    double f = (values[a, b] - range.Min) / (range.Max - range.Min);
-                    var cell = heatmap.Colormap.GetColor(Math.Clamp(f, 0, 1));
-                    (Luminance(cell) > 0.5 ? dark : light).Add(new Coordinates(b, n - 1 - a));
-                }
-            if (light.Count > 0) plot.Add.Markers(light.ToArray(), MarkerShape.FilledCircle, dot, Colors.White);
-            if (dark.Count > 0) plot.Add.Markers(dark.ToArray(), MarkerShape.FilledCircle, dot, FigureStyle.Ink);
-        }
-
-        var bar = plot.Add.ColorBar(heatmap);
-        bar.Label = valueLabel ?? result.Measure;
-        bar.LabelStyle.FontSize = 14;
-        bar.Axis.MinorTickStyle.Length = 0;
+        FigureStyle.AddColourBar(plot, heatmap, valueLabel ?? result.Measure);
 
         var positions = Enumerable.Range(0, n).Select(i => (double)i).ToArray();
         var labels = result.Channels.ToArray();
@@ -105,12 +88,24 @@ public static class MatrixFigure
         plot.Axes.Left.MinorTickStyle.Length = 0;
         plot.Axes.SetLimits(-0.5, n - 0.5, -0.5, n - 0.5);
 
-        int shown = result.Significant.Count(s => s);
-        string marks = n <= MaxMarkedChannels ? " (dotted)" : "";
-        string note = shown == 0
-            ? "no pair significant; all cells faded"
-            : $"{shown} of {result.Significant.Length} pairs significant{marks}; faded cells: not significant";
+        bool tested = result.P.Any(p => !double.IsNaN(p));
+        string note = !tested ? "values only: no test (surrogates: 0)"
+            : shown == 0 ? "no pair significant"
+            : $"{shown} of {result.Significant.Length} pairs significant (outlined)";
         plot.Title($"{FigureStyle.Title(result)}\n{note}", FigureStyle.TitleSize(width));
-        FigureStyle.SavePng(plot, path, width, height);
+        return plot;
+    }
+
+    private static void Outline(Plot plot, double x, double y, float width)
+    {
+        const double outer = 0.46, inner = 0.46;
+        var dark = plot.Add.Rectangle(x - outer, x + outer, y - outer, y + outer);
+        dark.FillStyle.Color = Colors.Transparent;
+        dark.LineStyle.Color = FigureStyle.Ink;
+        dark.LineStyle.Width = 2 * width;
+        var light = plot.Add.Rectangle(x - inner, x + inner, y - inner, y + inner);
+        light.FillStyle.Color = Colors.Transparent;
+        light.LineStyle.Color = Colors.White;
+        light.LineStyle.Width = width * 0.75f;
     }
 }

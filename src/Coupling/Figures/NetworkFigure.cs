@@ -1,54 +1,71 @@
 using Coupling.Graphs;
-using Coupling.Outputs;
 using Coupling.Results;
 using ScottPlot;
 
 namespace Coupling.Figures;
 
-/// <summary>Draws a result's significant pairs as a network of channels, as a PNG.</summary>
+/// <summary>Draws a result's significant pairs as a network of channels (PNG and/or SVG).</summary>
 /// <remarks>
-/// Nodes sit at the channels' (x, y) positions when every channel has one (equal units on both axes, as seen
-/// from above), else evenly on a circle, the first channel at the top and the rest clockwise. Only significant
-/// pairs are drawn; an edge's width (1 to 7 px, thinner for many channels) and colour grow with |value| on a scale
-/// from the smallest to the largest significant |value| (from 0 when they are all equal), with the colour bar beside. Negative values, for signed measures, are dashed. The
-/// colours are the upper 85 % of the perceptually uniform cmocean Amp map (Thyng KM, Greene CA, Hetland RD,
-/// Zimmerle HM, DiMarco SF, 2016, True colors of oceanography, Oceanography 29(3):9-13), so that the weakest
-/// edge is still visible. A figure with no significant pair shows the nodes and says so.
+/// Channels are placed by <see cref="ChannelLayout"/>: at the input's positions when every channel has one; else at
+/// their 10-20/10-10 positions on a head seen from above (outline, nose at the top, ears, L and R marks; left on the
+/// left), channels without a standard label in rows below; else, with no standard label at all, on an even grid in
+/// channel order. Only significant pairs are drawn; an edge's width (1 to 7 px, thinner for many channels) grows with
+/// |value| and its colour follows a colour bar that starts at 0: |value| from 0 to a round top on a sequential map
+/// for measures that are never negative, and the signed value on a diverging map symmetric about 0 for signed
+/// measures and condition differences (negative edges are also dashed). Colours in <see cref="FigureColours"/>.
+/// A figure with no significant pair shows the channels and says so.
 /// </remarks>
 public static class NetworkFigure
 {
     private const float MinWidth = 1f;
     private const float MaxWidth = 7f;
 
-    /// <summary>Writes the network of <paramref name="result"/> to <paramref name="path"/> as a PNG.</summary>
+    /// <summary>Writes the network of <paramref name="result"/> to <paramref name="path"/> (.png or .svg).</summary>
     /// <param name="result">The result to draw.</param>
-    /// <param name="path">Output PNG path; written atomically.</param>
+    /// <param name="path">Output path; its extension (.png or .svg) picks the format; written atomically.</param>
     /// <param name="width">Image width in pixels (at least 200).</param>
     /// <param name="height">Image height in pixels (at least 200).</param>
     /// <param name="valueLabel">What the values are, for the colour scale (default: the measure key).</param>
-    public static void Save(PairResult result, string path, int width = 900, int height = 800, string? valueLabel = null)
+    public static void Save(PairResult result, string path, int width = 900, int height = 800, string? valueLabel = null) =>
+        Save(result, [path], width, height, valueLabel);
+
+    /// <summary>Draws <paramref name="result"/> once and writes it to every path (.png or .svg each).</summary>
+    /// <param name="result">The result to draw.</param>
+    /// <param name="paths">Output paths, each written atomically in the format of its extension.</param>
+    /// <param name="width">Image width in pixels (at least 200).</param>
+    /// <param name="height">Image height in pixels (at least 200).</param>
+    /// <param name="valueLabel">What the values are, for the colour scale (default: the measure key).</param>
+    public static void Save(PairResult result, IReadOnlyList<string> paths, int width = 900, int height = 800, string? valueLabel = null)
+    {
+        FigureStyle.CheckSize(width, height);
+        using var plot = Build(result, width, valueLabel, out _);
+        FigureStyle.Save(plot, paths, width, height);
+    }
+
+    /// <summary>The figure of <paramref name="result"/>, with the layout it used.</summary>
+    internal static Plot Build(PairResult result, int width, string? valueLabel, out ChannelLayout layout)
     {
         var graph = ChannelGraphs.Build(result);
         int n = result.Channels.Count;
         if (n < 2) throw new ArgumentException($"Result {result.Condition}/{result.Band}/{result.Measure} has fewer than two channels.");
-        using var plot = FigureStyle.NewPlot();
+        var plot = FigureStyle.NewPlot();
         plot.HideAxesAndGrid();
 
-        bool placed = result.Positions is not null && n > 0 && result.Positions.All(p => p.HasValue);
-        var xy = placed ? Placed(result) : Circle(n);
+        layout = ChannelLayout.For(result);
+        var xy = layout.Points;
+        if (layout.Kind == ChannelLayoutKind.Head) DrawHead(plot);
 
-        var edges = graph.Edges.Where(e => !double.IsNaN(e.Weight)).OrderBy(e => e.Weight).ToArray();
-        var finite = edges.Where(e => double.IsFinite(e.Weight)).ToArray();
-        double high = finite.Length == 0 ? 1 : finite[^1].Weight;
-        double low = finite.Length == 0 ? 0 : finite[0].Weight;
-        if (!(high - low > 1e-9 * Math.Abs(high))) low = high > 0 ? 0 : high - 1; // all equal: scale from 0
-        var scale = new EdgeColorScale(new ScottPlot.Colormaps.Amp(), 0.15, low, high);
+        var edges = graph.Edges.Where(e => double.IsFinite(e.Value)).OrderBy(e => e.Weight).ToArray();
+        string label = valueLabel ?? result.Measure;
+        bool signed = FigureStyle.IsSigned(result.Measure, result.Value.Where(double.IsFinite));
+        double largest = edges.Length == 0 ? 1 : edges.Max(e => e.Weight);
+        var scale = signed ? EdgeColorScale.Diverging(largest) : EdgeColorScale.Magnitude(largest);
         float maxWidth = n <= 20 ? MaxWidth : n <= 40 ? 5f : 3.5f;
         foreach (var e in edges)
         {
             var line = plot.Add.Line(xy[e.A], xy[e.B]);
-            line.LineWidth = MinWidth + (maxWidth - MinWidth) * (float)scale.Fraction(e.Weight);
-            line.LineColor = scale.ColorOf(e.Weight);
+            line.LineWidth = MinWidth + (maxWidth - MinWidth) * (float)scale.Strength(e.Value);
+            line.LineColor = scale.ColorOf(e.Value);
             line.MarkerSize = 0;
             if (e.Value < 0) line.LinePattern = LinePattern.Dashed;
         }
@@ -57,58 +74,103 @@ public static class NetworkFigure
         var nodes = plot.Add.Markers(xy, MarkerShape.FilledCircle, nodeSize, Colors.White);
         nodes.MarkerStyle.OutlineColor = FigureStyle.Ink;
         nodes.MarkerStyle.OutlineWidth = 1.5f;
+        Label(plot, result.Channels, xy, layout.Kind, nodeSize, n);
 
-        float font = n <= 20 ? 13 : n <= 64 ? 10 : 8;
-        var centre = new Coordinates(xy.Average(c => c.X), xy.Average(c => c.Y));
-        for (int i = 0; i < n; i++)
-        {
-            var text = plot.Add.Text(result.Channels[i], xy[i]);
-            text.LabelFontSize = font;
-            text.LabelFontColor = FigureStyle.Ink;
-            // Push the label away from the centre of the layout, off the node.
-            double dx = xy[i].X - centre.X, dy = xy[i].Y - centre.Y;
-            double len = Math.Sqrt(dx * dx + dy * dy);
-            float push = nodeSize * 0.6f + 3;
-            text.OffsetX = len > 0 ? (float)(push * dx / len) : 0;
-            text.OffsetY = len > 0 ? (float)(-push * dy / len) : -push;
-            text.Alignment = AlignmentFor(dx, dy, len);
-        }
-
-        // Limits: the nodes' bounding box plus room for the labels outside the outermost nodes.
-        double minX = xy.Min(c => c.X), maxX = xy.Max(c => c.X), minY = xy.Min(c => c.Y), maxY = xy.Max(c => c.Y);
-        double span = Math.Max(Math.Max(maxX - minX, maxY - minY), 1e-9);
-        plot.Axes.SetLimits(minX - 0.22 * span, maxX + 0.22 * span, minY - 0.12 * span, maxY + 0.12 * span);
-        plot.Axes.SquareUnits();
+        SetLimits(plot, xy, layout.Kind);
 
         string note;
         if (edges.Length == 0)
         {
-            note = "no pair significant: no edges to draw";
+            note = graph.EdgeCount == 0 ? "no pair significant: no edges to draw" : "significant pairs have no finite value to draw";
         }
         else
         {
-            var bar = plot.Add.ColorBar(scale);
-            // No bar label: the title's second line names the scale (a label here would collide with the ticks).
-            bar.Axis.MinorTickStyle.Length = 0;
-            string dashed = edges.Any(e => e.Value < 0) ? "; dashed: negative" : "";
-            note = $"{edges.Length} significant of {result.Significant.Length} pairs; width and colour: |{valueLabel ?? result.Measure}|{dashed}";
+            FigureStyle.AddColourBar(plot, scale, signed ? label : $"|{label}|");
+            string sign = signed ? "; colour: sign and size (negative also dashed)" : "";
+            note = $"{edges.Length} significant of {result.Significant.Length} pairs; width: |{label}|{sign}";
         }
         plot.Title($"{FigureStyle.Title(result)}\n{note}", FigureStyle.TitleSize(width));
-        // Fixed margins: room for the two-line title at the top and the colour bar at the right.
-        plot.Layout.Fixed(new PixelPadding(left: 30, right: edges.Length == 0 ? 30 : 100, bottom: 40, top: 64));
-        if (!placed && result.Positions is not null)
-            plot.XLabel("not every channel has a position: channels placed on a circle", 12);
-        FigureStyle.SavePng(plot, path, width, height);
+        if (layout.Note is not null)
+        {
+            var annotation = plot.Add.Annotation(layout.Note, Alignment.LowerCenter);
+            annotation.LabelFontSize = 12;
+            annotation.LabelFontColor = FigureStyle.Ink;
+            annotation.LabelBackgroundColor = Colors.White;
+            annotation.LabelBorderColor = Colors.Transparent;
+            annotation.LabelShadowColor = Colors.Transparent;
+        }
+        // Fixed margins: room for the two-line title at the top, the colour bar with its ticks and title at the right.
+        plot.Layout.Fixed(new PixelPadding(left: 30, right: edges.Length == 0 ? 30 : 140, bottom: 30, top: 64));
+        return plot;
     }
 
-    private static Coordinates[] Placed(PairResult r) =>
-        r.Positions!.Select(p => new Coordinates(p!.Value.X, p.Value.Y)).ToArray();
+    /// <summary>Head seen from above: outline at the nasion-inion level, nose to the front, ears, and L / R marks.</summary>
+    private static void DrawHead(Plot plot)
+    {
+        const double r = ChannelLayout.HeadRadius;
+        var outline = plot.Add.Circle(0, 0, r);
+        outline.FillStyle.Color = Colors.Transparent;
+        outline.LineStyle.Color = FigureStyle.Quiet.Darken(0.3);
+        outline.LineStyle.Width = 2;
+        var nose = plot.Add.Scatter(new[] { -0.1 * r, 0, 0.1 * r }, new[] { 0.995 * r, 1.1 * r, 0.995 * r });
+        nose.Color = FigureStyle.Quiet.Darken(0.3);
+        nose.LineWidth = 2;
+        nose.MarkerSize = 0;
+        foreach (double side in (double[])[-1, 1])
+        {
+            var ear = plot.Add.Ellipse(side * 1.03 * r, 0, 0.05 * r, 0.15 * r);
+            ear.FillStyle.Color = Colors.Transparent;
+            ear.LineStyle.Color = FigureStyle.Quiet.Darken(0.3);
+            ear.LineStyle.Width = 2;
+            var mark = plot.Add.Text(side < 0 ? "L" : "R", new Coordinates(side * 1.17 * r, 0));
+            mark.LabelFontSize = 16;
+            mark.LabelBold = true;
+            mark.LabelFontColor = FigureStyle.Ink;
+            mark.LabelAlignment = Alignment.MiddleCenter;
+        }
+    }
 
-    private static Coordinates[] Circle(int n) =>
-        Enumerable.Range(0, n)
-            .Select(i => Math.PI / 2 - 2 * Math.PI * i / Math.Max(n, 1))
-            .Select(a => new Coordinates(Math.Cos(a), Math.Sin(a)))
-            .ToArray();
+    private static void Label(Plot plot, IReadOnlyList<string> channels, Coordinates[] xy, ChannelLayoutKind kind, float nodeSize, int n)
+    {
+        float font = n <= 20 ? 13 : n <= 64 ? 10 : 8;
+        var centre = new Coordinates(xy.Average(c => c.X), xy.Average(c => c.Y));
+        for (int i = 0; i < n; i++)
+        {
+            var text = plot.Add.Text(channels[i], xy[i]);
+            text.LabelFontSize = font;
+            text.LabelFontColor = FigureStyle.Ink;
+            text.LabelBackgroundColor = Colors.White.WithAlpha(0.75);
+            float push = nodeSize * 0.6f + 2;
+            if (kind != ChannelLayoutKind.Electrodes)
+            {
+                // Above the node: the same place for every channel reads fastest on a head or a grid.
+                text.LabelAlignment = Alignment.LowerCenter;
+                text.OffsetY = -push;
+                continue;
+            }
+            // Away from the centre of the layout, off the node.
+            double dx = xy[i].X - centre.X, dy = xy[i].Y - centre.Y;
+            double len = Math.Sqrt(dx * dx + dy * dy);
+            text.OffsetX = len > 0 ? (float)(push * dx / len) : 0;
+            text.OffsetY = len > 0 ? (float)(-push * dy / len) : -push;
+            text.LabelAlignment = AlignmentFor(dx, dy, len);
+        }
+    }
+
+    private static void SetLimits(Plot plot, Coordinates[] xy, ChannelLayoutKind kind)
+    {
+        double minX = xy.Min(c => c.X), maxX = xy.Max(c => c.X), minY = xy.Min(c => c.Y), maxY = xy.Max(c => c.Y);
+        if (kind == ChannelLayoutKind.Head)
+        {
+            const double r = ChannelLayout.HeadRadius;
+            minX = Math.Min(minX, -1.25 * r); maxX = Math.Max(maxX, 1.25 * r);
+            minY = Math.Min(minY, -r); maxY = Math.Max(maxY, 1.1 * r);
+        }
+        double span = Math.Max(Math.Max(maxX - minX, maxY - minY), 1e-9);
+        double pad = kind == ChannelLayoutKind.Electrodes ? 0.22 : 0.08;
+        plot.Axes.SetLimits(minX - pad * span, maxX + pad * span, minY - 0.1 * span, maxY + 0.12 * span);
+        plot.Axes.SquareUnits();
+    }
 
     private static Alignment AlignmentFor(double dx, double dy, double len)
     {

@@ -47,7 +47,8 @@ internal static class EdfAnnotations
                 duration = ParseSeconds(head[(mark + 1)..], signed: false)
                     ?? throw error(talStart, $"duration '{Encoding.ASCII.GetString(head[(mark + 1)..])}' is not decimal seconds");
 
-            var texts = tal[(headEnd + 1)..^1];
+            // A TAL closed right after its onset ("+1 0x14 0x00") has no texts; it still carries the onset.
+            var texts = headEnd + 1 < tal.Length ? tal[(headEnd + 1)..^1] : ReadOnlySpan<byte>.Empty;
             bool firstText = true;
             while (true)
             {

@@ -104,7 +104,7 @@ public static class EdfReader
         }
         catch (Exception e) when (e is IOException or UnauthorizedAccessException)
         {
-            throw new InputException($"{path}: cannot open the EDF file: {e.Message}", e);
+            throw FileErrors.Reading(path, "EDF file", e);
         }
     }
 
@@ -186,7 +186,7 @@ public static class EdfReader
         var stamps = new double[annotationSignals.Length > 0 ? header.RecordCount : 0];
 
         int recordsPerBlock = Math.Max(1, BlockBytes / Math.Max(1, recordBytes));
-        var buffer = new byte[(long)Math.Min(recordsPerBlock, Math.Max(1, header.RecordCount)) * recordBytes];
+        var buffer = new byte[(long)Math.Min(recordsPerBlock, header.RecordCount) * recordBytes];
         stream.Position = header.HeaderBytes;
         for (int r0 = 0; r0 < header.RecordCount; r0 += recordsPerBlock)
         {
@@ -245,7 +245,10 @@ public static class EdfReader
         }
     }
 
-    internal static EdfHeader ParseHeader(string path, Stream stream)
+    /// <summary>Longest data record supported (bytes); a record is read into memory whole.</summary>
+    internal const long MaxRecordBytes = 64L << 20;
+
+    internal static EdfHeader ParseHeader(string path, Stream stream, bool keepCompleteRecords = false, List<string>? notes = null)
     {
         long length = stream.Length;
         if (length < FixedHeaderBytes)
@@ -319,13 +322,23 @@ public static class EdfReader
         }
 
         long recordBytes = signals.Sum(s => 2L * s.SamplesPerRecord);
+        // Checked against the file length before anything is sized from it: a header may promise more than the file holds.
+        if (recordBytes > MaxRecordBytes)
+            throw new InputException($"{path}: header fields 'number of samples in each data record' make a data record {recordBytes} bytes long; at most {MaxRecordBytes} are supported.");
+        long complete = (length - headerBytes) / recordBytes;
         if (recordCount == -1)
-            recordCount = (int)Math.Min(int.MaxValue, (length - headerBytes) / recordBytes);
+            recordCount = (int)Math.Min(int.MaxValue, complete);
         else if (recordCount < 0)
             throw new InputException($"{path}: header field 'number of data records' at byte 236 is {recordCount}; expected a count or -1.");
-        long needed = headerBytes + recordCount * recordBytes;
-        if (length < needed)
-            throw new InputException($"{path}: truncated EDF file: {length} bytes, but the header promises {needed} ({recordCount} data records of {recordBytes} bytes after a {headerBytes}-byte header).");
+        if (recordCount > complete)
+        {
+            long needed = headerBytes + recordCount * recordBytes; // no overflow: recordCount < 2^31, recordBytes <= MaxRecordBytes
+            if (!keepCompleteRecords)
+                throw new InputException($"{path}: truncated EDF file: {length} bytes, but the header promises {needed} ({recordCount} data records of {recordBytes} bytes after a {headerBytes}-byte header). " +
+                    "To analyse the complete records it holds, give 'truncated_recording: keep-complete-records' in the plan.");
+            notes?.Add($"Truncated file: {complete} of the {recordCount} data records the header promises are complete and were kept ({Text(complete * duration)} s); the rest ({length - headerBytes - complete * recordBytes} bytes of a partial record) was left out.");
+            recordCount = (int)complete;
+        }
 
         var start = ParseStart(path, date, time, recording, reserved);
         return new EdfHeader(path, version, patient, recording, start, headerBytes, reserved, recordCount, duration, signals);

@@ -1,4 +1,5 @@
 using System.Buffers;
+using System.Buffers.Binary;
 
 namespace Coupling.Formats;
 
@@ -21,12 +22,14 @@ public sealed class EdfSegmentReader : ISampleSource
 
     private readonly int[] _signals;
     private readonly bool[] _flat;
+    private readonly List<(int Start, int Length)>[] _clipped;
     private readonly int[] _offsets;
     private readonly int _perRecord;
 
     private EdfSegmentReader(EdfHeader header, int perRecord, double sampleRate, int[] signals, IReadOnlyList<ChannelInfo> channels,
-        bool[] flat, IReadOnlyList<RecordingEvent> events, IReadOnlyList<string> notes, int sampleCount)
+        bool[] flat, List<(int Start, int Length)>[] clipped, IReadOnlyList<RecordingEvent> events, IReadOnlyList<string> notes, int sampleCount)
     {
+        _clipped = clipped;
         _perRecord = perRecord;
         Header = header;
         _signals = signals;
@@ -46,14 +49,16 @@ public sealed class EdfSegmentReader : ISampleSource
     /// <param name="path">The file to read.</param>
     /// <param name="selectedChannels">Labels of the signals to read (trimmed labels, ordinal match), or null for all
     /// ordinary signals at the most common sampling rate, as in <see cref="EdfReader.Read"/>.</param>
+    /// <param name="keepCompleteRecords">For a file shorter than its header promises: read the complete data records
+    /// it holds (saying how many in <see cref="Notes"/>) instead of refusing it.</param>
     /// <returns>The reader, with the events and notes <see cref="EdfReader.Read"/> would give.</returns>
     /// <exception cref="InputException">The file is missing, EDF+D, malformed or truncated; a selected label is unknown;
     /// or selected signals differ in sampling rate.</exception>
-    public static EdfSegmentReader Open(string path, IReadOnlyCollection<string>? selectedChannels = null)
+    public static EdfSegmentReader Open(string path, IReadOnlyCollection<string>? selectedChannels = null, bool keepCompleteRecords = false)
     {
         using var stream = EdfReader.Open(path);
-        var header = EdfReader.ParseHeader(path, stream);
         var notes = new List<string>();
+        var header = EdfReader.ParseHeader(path, stream, keepCompleteRecords, notes);
         var selected = EdfReader.SelectReadable(header, selectedChannels, notes);
         var signals = header.Signals;
         int perRecord = signals[selected[0]].SamplesPerRecord;
@@ -64,10 +69,32 @@ public sealed class EdfSegmentReader : ISampleSource
         // A channel is flat when every physical sample equals its first (exact comparison, as RecordingChecks does).
         var flat = Enumerable.Repeat(true, selected.Length).ToArray();
         var first = new double[selected.Length];
-        var scratch = new double[perRecord];
+        var scratch = new double[header.RecordCount > 0 ? perRecord : 0]; // sized only when the file backs a record
         var offsets = EdfReader.SignalOffsets(header);
+        var clipped = selected.Select(_ => new List<(int Start, int Length)>()).ToArray();
+        var runStart = Enumerable.Repeat(-1, selected.Length).ToArray();
+        var runValue = new int[selected.Length];
+        void Close(int c, int end)
+        {
+            if (runStart[c] >= 0 && end - runStart[c] >= 2) clipped[c].Add((runStart[c], end - runStart[c]));
+            runStart[c] = -1;
+        }
         var events = EdfReader.ScanRecords(header, stream, notes, (r, record) =>
         {
+            // Clipping: runs of two or more consecutive samples at the signal's digital minimum or maximum.
+            for (int c = 0; c < selected.Length; c++)
+            {
+                var s = signals[selected[c]];
+                var bytes = record.Slice(offsets[selected[c]], 2 * perRecord);
+                for (int i = 0; i < perRecord; i++)
+                {
+                    int d = BinaryPrimitives.ReadInt16LittleEndian(bytes.Slice(2 * i, 2));
+                    int at = r * perRecord + i;
+                    bool limit = d == s.DigitalMinimum || d == s.DigitalMaximum;
+                    if (runStart[c] >= 0 && (!limit || d != runValue[c])) Close(c, at);
+                    if (limit && runStart[c] < 0) { runStart[c] = at; runValue[c] = d; }
+                }
+            }
             for (int c = 0; c < selected.Length; c++)
             {
                 if (!flat[c]) continue;
@@ -77,8 +104,9 @@ public sealed class EdfSegmentReader : ISampleSource
                 if (scratch.AsSpan().IndexOfAnyExcept(first[c]) >= 0) flat[c] = false;
             }
         });
+        for (int c = 0; c < selected.Length; c++) Close(c, (int)perChannel);
         var channels = selected.Select(i => EdfReader.ToChannel(signals[i])).ToArray();
-        return new EdfSegmentReader(header, perRecord, signals[selected[0]].SampleRate, selected, channels, flat, events, notes, (int)perChannel);
+        return new EdfSegmentReader(header, perRecord, signals[selected[0]].SampleRate, selected, channels, flat, clipped, events, notes, (int)perChannel);
     }
 
     /// <summary>The file's header (every signal, including annotation signals).</summary>
@@ -107,6 +135,13 @@ public sealed class EdfSegmentReader : ISampleSource
     public IReadOnlyList<string> FindFlatChannels() =>
         Enumerable.Range(0, Channels.Count).Where(c => _flat[c]).Select(c => Channels[c].Label).ToArray();
 
+    /// <summary>
+    /// Runs of clipped samples of channel <paramref name="channel"/> as (first sample, length): two or more consecutive
+    /// samples at the signal's digital minimum or maximum (the same one), as found when the file was opened.
+    /// </summary>
+    /// <param name="channel">Index into <see cref="Channels"/>.</param>
+    public IReadOnlyList<(int Start, int Length)> ClippedRuns(int channel) => _clipped[channel];
+
     /// <summary>A reader of some of this reader's channels (no file access), in the given order, with new channel
     /// descriptions (e.g. types and positions from sidecar files); events and notes are kept. No channels is allowed.</summary>
     /// <param name="indices">Indices into <see cref="Channels"/>.</param>
@@ -117,7 +152,7 @@ public sealed class EdfSegmentReader : ISampleSource
             throw new ArgumentException($"{indices.Count} indices but {channels.Count} channel descriptions.", nameof(channels));
         foreach (int i in indices) ArgumentOutOfRangeException.ThrowIfGreaterThanOrEqual((uint)i, (uint)Channels.Count, nameof(indices));
         return new EdfSegmentReader(Header, _perRecord, SampleRate, indices.Select(i => _signals[i]).ToArray(), channels.ToArray(),
-            indices.Select(i => _flat[i]).ToArray(), Events, Notes, SampleCount);
+            indices.Select(i => _flat[i]).ToArray(), indices.Select(i => _clipped[i]).ToArray(), Events, Notes, SampleCount);
     }
 
     /// <inheritdoc/>

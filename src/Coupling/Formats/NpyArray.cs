@@ -44,18 +44,63 @@ public sealed partial class NpyArray
     /// <param name="path">The .npy file.</param>
     /// <returns>The array.</returns>
     /// <exception cref="InputException">Wrong magic, unsupported version or dtype, malformed header, truncated data,
-    /// or a NaN or infinite value (its index named).</exception>
-    public static NpyArray Read(string path)
+    /// or a NaN or infinite value (its index named) unless <paramref name="allowNonFinite"/>.</exception>
+    /// <param name="allowNonFinite">Keep NaN and infinite values instead of refusing them, for a caller that leaves them out later.</param>
+    public static NpyArray Read(string path, bool allowNonFinite = false)
     {
-        byte[] bytes;
+        var bytes = ReadBytes(path);
+        var (shape, dtype, fortran, dataStart) = ParseHeader(path, bytes);
+        int itemSize = ItemSize(dtype);
+        long count = 1;
+        foreach (int d in shape) count *= d;
+        long dataBytes = count * itemSize;
+        var data = bytes.AsSpan(dataStart, (int)dataBytes);
+        var raw = new double[count];
+        for (int i = 0; i < count; i++)
+        {
+            var item = data.Slice(i * itemSize, itemSize);
+            raw[i] = dtype switch
+            {
+                "<f8" => BinaryPrimitives.ReadDoubleLittleEndian(item),
+                "<f4" => BinaryPrimitives.ReadSingleLittleEndian(item),
+                "<i2" => BinaryPrimitives.ReadInt16LittleEndian(item),
+                "<i4" => BinaryPrimitives.ReadInt32LittleEndian(item),
+                _ => BinaryPrimitives.ReadInt64LittleEndian(item),
+            };
+        }
+        var values = fortran && shape.Count > 1 ? FortranToC(raw, shape) : raw;
+        for (int i = 0; i < values.Length && !allowNonFinite; i++)
+            if (!double.IsFinite(values[i]))
+                throw new InputException($"{path}: value at index ({string.Join(", ", Unravel(i, shape))}) is {SampleText.NonFinite(values[i])}; samples must be finite numbers (the last index is the sample, the one before it the channel).");
+        return new NpyArray(shape, values);
+    }
+
+    /// <summary>The shape, dtype and order of a .npy file, checked against its length, without converting the values.</summary>
+    /// <param name="path">The .npy file.</param>
+    /// <returns>Dimensions (outermost first), the dtype text (e.g. '&lt;f8') and whether the data are in Fortran order.</returns>
+    /// <exception cref="InputException">Wrong magic, unsupported version or dtype, malformed header or truncated data.</exception>
+    public static (IReadOnlyList<int> Shape, string DataType, bool FortranOrder) ReadHeader(string path)
+    {
+        var (shape, dtype, fortran, _) = ParseHeader(path, ReadBytes(path));
+        return (shape, dtype, fortran);
+    }
+
+    private static byte[] ReadBytes(string path)
+    {
         try
         {
-            bytes = File.ReadAllBytes(path);
+            return File.ReadAllBytes(path);
         }
         catch (Exception e) when (e is IOException or UnauthorizedAccessException)
         {
-            throw new InputException($"{path}: cannot read the .npy file: {e.Message}", e);
+            throw FileErrors.Reading(path, ".npy file", e);
         }
+    }
+
+    private static int ItemSize(string dtype) => dtype switch { "<f8" or "<i8" => 8, "<f4" or "<i4" => 4, _ => 2 };
+
+    private static (List<int> Shape, string DataType, bool Fortran, int DataStart) ParseHeader(string path, byte[] bytes)
+    {
         if (bytes.Length < 10 || !bytes.AsSpan(0, 6).SequenceEqual(Magic))
             throw new InputException($"{path}: not a .npy file (expected the magic bytes \\x93NUMPY at byte 0).");
         int major = bytes[6];
@@ -102,32 +147,14 @@ public sealed partial class NpyArray
             shape.Add(d);
         }
         long count = 1;
-        foreach (int d in shape) count *= d;
+        foreach (int d in shape) count = Math.Min(count * d, (long)Array.MaxLength + 1); // no overflow however many dimensions
         if (count > Array.MaxLength)
             throw new InputException($"{path}: .npy array of {count} values is too large.");
         long dataBytes = count * itemSize;
         if (bytes.Length - dataStart < dataBytes)
             throw new InputException($"{path}: truncated .npy file: shape ({string.Join(", ", shape)}) of '{dtype}' needs {dataBytes} data bytes, the file holds {bytes.Length - dataStart}.");
 
-        var data = bytes.AsSpan(dataStart, (int)dataBytes);
-        var raw = new double[count];
-        for (int i = 0; i < count; i++)
-        {
-            var item = data.Slice(i * itemSize, itemSize);
-            raw[i] = dtype switch
-            {
-                "<f8" => BinaryPrimitives.ReadDoubleLittleEndian(item),
-                "<f4" => BinaryPrimitives.ReadSingleLittleEndian(item),
-                "<i2" => BinaryPrimitives.ReadInt16LittleEndian(item),
-                "<i4" => BinaryPrimitives.ReadInt32LittleEndian(item),
-                _ => BinaryPrimitives.ReadInt64LittleEndian(item),
-            };
-        }
-        var values = fortran && shape.Count > 1 ? FortranToC(raw, shape) : raw;
-        for (int i = 0; i < values.Length; i++)
-            if (!double.IsFinite(values[i]))
-                throw new InputException($"{path}: value at index ({string.Join(", ", Unravel(i, shape))}) is {values[i]}; samples must be finite (the last index is the sample, the one before it the channel).");
-        return new NpyArray(shape, values);
+        return (shape, dtype, fortran, dataStart);
     }
 
     /// <summary>Writes the array as a version 1.0 .npy file of little-endian doubles ('&lt;f8') in C order,

@@ -32,7 +32,7 @@ internal sealed class TsvTable
         }
         catch (Exception e) when (e is IOException or UnauthorizedAccessException)
         {
-            throw new InputException($"{path}: cannot read the table: {e.Message}", e);
+            throw FileErrors.Reading(path, "table", e);
         }
         if (lines.Length == 0 || lines[0].Trim().Length == 0)
             throw new InputException($"{path}: line 1: expected a header row of tab-separated column names.");

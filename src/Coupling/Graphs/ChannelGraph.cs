@@ -9,6 +9,7 @@ namespace Coupling.Graphs;
 public sealed class ChannelGraph
 {
     private readonly Dictionary<(string, string), GraphEdge> _byVertices;
+    private readonly Lazy<GraphMeasureSet> _measures;
 
     internal ChannelGraph(
         string condition, string band, string measure,
@@ -23,6 +24,7 @@ public sealed class ChannelGraph
         Edges = edges;
         Nodes = nodes;
         _byVertices = byVertices;
+        _measures = new Lazy<GraphMeasureSet>(() => GraphMeasures.Compute(this));
     }
 
     /// <summary>Condition name of the source result.</summary>
@@ -45,6 +47,9 @@ public sealed class ChannelGraph
 
     /// <summary>Degree and strength of every channel, in channel order.</summary>
     public IReadOnlyList<NodeSummary> Nodes { get; }
+
+    /// <summary>Clustering, efficiency, components and modules (<see cref="GraphMeasures.Compute"/>), computed on first use.</summary>
+    public GraphMeasureSet Measures => _measures.Value;
 
     /// <summary>Number of vertices (channels).</summary>
     public int VertexCount => Nodes.Count;

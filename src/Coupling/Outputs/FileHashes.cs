@@ -20,7 +20,7 @@ public static class FileHashes
         }
         catch (Exception e) when (e is IOException or UnauthorizedAccessException)
         {
-            throw new InputException($"Cannot read input file '{path}' to hash it: {e.Message}", e);
+            throw FileErrors.Reading(path, "input file", e);
         }
     }
 }

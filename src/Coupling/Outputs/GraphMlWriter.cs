@@ -13,8 +13,10 @@ namespace Coupling.Outputs;
 /// <c>n&lt;index&gt;</c> in channel order; an edge per significant pair with id <c>e&lt;pair index&gt;</c>,
 /// source the lower channel index. Declared keys (GraphML-Attributes): graph condition, band, measure
 /// (string); node label (string), x and y (double, declared only when the result has positions, written for
-/// the channels that have one), degree (int), strength (double); edge weight = |value|, value, z, p,
-/// p_corrected (double). Doubles use the XML Schema lexical form (shortest round-trip, NaN, INF, -INF).
+/// the channels that have one), degree (int), strength (double), clustering, clustering_weighted (double),
+/// component (int), module (int, only where modularity is defined); graph measures of <see cref="GraphSummary"/>
+/// (components, modules: int; efficiency, efficiency_weighted, modularity, clustering, clustering_weighted: double);
+/// edge weight = |value|, value, z, p, p_corrected (double). Doubles use the XML Schema lexical form (shortest round-trip, NaN, INF, -INF).
 /// </remarks>
 public static class GraphMlWriter
 {
@@ -55,6 +57,13 @@ public static class GraphMlWriter
             Key(w, "g_condition", "graph", "condition", "string");
             Key(w, "g_band", "graph", "band", "string");
             Key(w, "g_measure", "graph", "measure", "string");
+            Key(w, "g_components", "graph", "components", "int");
+            Key(w, "g_modules", "graph", "modules", "int");
+            Key(w, "g_modularity", "graph", "modularity", "double");
+            Key(w, "g_efficiency", "graph", "efficiency", "double");
+            Key(w, "g_efficiency_weighted", "graph", "efficiency_weighted", "double");
+            Key(w, "g_clustering", "graph", "clustering", "double");
+            Key(w, "g_clustering_weighted", "graph", "clustering_weighted", "double");
             Key(w, "n_label", "node", "label", "string");
             if (positions)
             {
@@ -63,6 +72,10 @@ public static class GraphMlWriter
             }
             Key(w, "n_degree", "node", "degree", "int");
             Key(w, "n_strength", "node", "strength", "double");
+            Key(w, "n_clustering", "node", "clustering", "double");
+            Key(w, "n_clustering_weighted", "node", "clustering_weighted", "double");
+            Key(w, "n_component", "node", "component", "int");
+            Key(w, "n_module", "node", "module", "int");
             Key(w, "e_weight", "edge", "weight", "double");
             Key(w, "e_value", "edge", "value", "double");
             Key(w, "e_z", "edge", "z", "double");
@@ -75,6 +88,14 @@ public static class GraphMlWriter
             Data(w, "g_condition", result.Condition);
             Data(w, "g_band", result.Band);
             Data(w, "g_measure", result.Measure);
+            var summary = graph.Measures.Summary;
+            Data(w, "g_components", XmlConvert.ToString(summary.Components));
+            Data(w, "g_modules", XmlConvert.ToString(summary.Modules));
+            Data(w, "g_modularity", XmlConvert.ToString(summary.Modularity));
+            Data(w, "g_efficiency", XmlConvert.ToString(summary.Efficiency));
+            Data(w, "g_efficiency_weighted", XmlConvert.ToString(summary.WeightedEfficiency));
+            Data(w, "g_clustering", XmlConvert.ToString(summary.Clustering));
+            Data(w, "g_clustering_weighted", XmlConvert.ToString(summary.WeightedClustering));
 
             foreach (var node in graph.Nodes)
             {
@@ -88,6 +109,11 @@ public static class GraphMlWriter
                 }
                 Data(w, "n_degree", XmlConvert.ToString(node.Degree));
                 Data(w, "n_strength", XmlConvert.ToString(node.Strength));
+                var measures = graph.Measures.Nodes[node.Index];
+                Data(w, "n_clustering", XmlConvert.ToString(measures.Clustering));
+                Data(w, "n_clustering_weighted", XmlConvert.ToString(measures.WeightedClustering));
+                Data(w, "n_component", XmlConvert.ToString(measures.Component));
+                if (measures.Module is int module) Data(w, "n_module", XmlConvert.ToString(module));
                 w.WriteEndElement();
             }
 

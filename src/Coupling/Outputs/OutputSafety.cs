@@ -59,6 +59,12 @@ public static class OutputSafety
         string full = Path.GetFullPath(target);
         if (File.Exists(full))
             throw new InputException($"{setting}: '{full}' is an existing file; the results need a folder. Name a new folder.");
+        for (string? up = Path.GetDirectoryName(full); up is not null; up = Path.GetDirectoryName(up))
+        {
+            if (Directory.Exists(up)) break;
+            if (File.Exists(up))
+                throw new InputException($"{setting}: '{full}' cannot be made, since '{up}' is a file, not a folder. Name a folder whose parent is a folder.");
+        }
         if (!Directory.Exists(full)) return [];
         if (new DirectoryInfo(full).LinkTarget is not null)
             throw new InputException($"{setting}: '{full}' is a link to another folder; it is left as it is. Name a new folder for the results.");

@@ -23,8 +23,10 @@ public static class AnalysisRunner
     /// <param name="commandLine">The command line that started the run, for the manifest.</param>
     /// <param name="cancellationToken">Stops the run (with <see cref="OperationCanceledException"/>) before anything is committed.</param>
     /// <param name="restart">Discard the units kept by an interrupted earlier run instead of resuming it (see <see cref="UnfinishedRun"/>).</param>
+    /// <param name="onWarning">Receives each warning as soon as it is known (before the long computation); may be null.
+    /// The same warnings are in <see cref="RunOutcome.Warnings"/> and the report.</param>
     public static RunOutcome Run(Plan plan, IProgress<RunProgress>? progress = null, int threads = 0, string? commandLine = null,
-        CancellationToken cancellationToken = default, bool restart = false)
+        CancellationToken cancellationToken = default, bool restart = false, Action<string>? onWarning = null)
     {
         var started = DateTimeOffset.UtcNow;
         var clock = Stopwatch.StartNew();
@@ -34,22 +36,24 @@ public static class AnalysisRunner
         var units = UnfinishedRun.Open(plan, restart);
         progress?.Report(new RunProgress("reading input", 0, 0));
         var input = InputLoader.Load(plan);
-        var analysis = Analyse(plan, input, progress, workers, cancellationToken, units);
+        var analysis = Analyse(plan, input, progress, workers, cancellationToken, units, onWarning);
         cancellationToken.ThrowIfCancellationRequested();
 
         progress?.Report(new RunProgress("writing results", 0, 0));
-        var written = ResultsWriter.Write(plan, input, analysis, new RunContext(started, clock.Elapsed, commandLine, workers, units.Resumed), progress);
+        string written;
+        try { written = ResultsWriter.Write(plan, input, analysis, new RunContext(started, clock.Elapsed, commandLine, workers, units.Resumed), progress); }
+        catch (Exception e) when (FileErrors.IsFileError(e) && e is not FileAccessException) { throw FileErrors.Writing(plan.Output, "results folder", e); }
         units.Remove();
         return new RunOutcome(written, analysis.Results, analysis.Conditions, analysis.Warnings, clock.Elapsed, analysis.Contrasts, units.Resumed);
     }
 
     /// <summary>
-    /// Everything computed by a run, before it is written. With <paramref name="units"/> (the last parameter) each
-    /// condition x band and contrast x band is loaded when an interrupted earlier run kept it, and kept once computed;
-    /// without, every unit is computed.
+    /// Everything computed by a run, before it is written. With <paramref name="units"/> each condition x band and
+    /// contrast x band is loaded when an interrupted earlier run kept it, and kept once computed; without, every unit is
+    /// computed. <paramref name="onWarning"/> receives each warning once every input check has passed, before any long step.
     /// </summary>
     public static Analysis Analyse(Plan plan, LoadedInput input, IProgress<RunProgress>? progress, int workers,
-        CancellationToken cancellationToken = default, UnfinishedRun? units = null)
+        CancellationToken cancellationToken = default, UnfinishedRun? units = null, Action<string>? onWarning = null)
     {
         var decompositions = plan.Bands
             .Select(b => InPlan(plan, $"bands.{b.Name}", () => BandDecompositions.Create(plan.Decomposition.Method, b, input.SampleRate,
@@ -57,6 +61,7 @@ public static class AnalysisRunner
             .ToArray();
         var steps = decompositions.Select(d => plan.Decomposition.TimeStep ?? TimeStep.Default(d.Info, input.SampleRate)).ToArray();
         int pad = decompositions.Max(d => d.PadSamples);
+        if (plan.UnusableData == UnusableData.DropTrials) input = input.WithoutUnusableTrials(plan.Trial, pad);
 
         // Check every condition first, so that input problems (unknown labels, too few trials) surface before any long
         // step. Trials are only counted here; each condition is cut when its turn comes, so only one condition's trials
@@ -66,22 +71,27 @@ public static class AnalysisRunner
         {
             foreach (var label in condition.EventLabels)
                 if (!input.EventLabels.Contains(label))
-                    throw new InputException($"{plan.Source}: conditions.{condition.Name}: event label '{label}' does not occur in {input.Source}; labels there: {string.Join(", ", input.EventLabels.Distinct().Order(StringComparer.Ordinal))}.");
-            int count = input.TrialCount(condition, plan.Trial);
-            InPlan(plan, "surrogates", () => { SurrogateTest.CheckFeasible(count, plan.Surrogates, condition.Name); return 0; });
+                {
+                    var known = input.EventLabels.Distinct().Order(StringComparer.Ordinal).ToArray();
+                    throw new InputException($"{plan.Where($"conditions.{condition.Name}")}: event label '{label}' does not occur in {input.Source}{Plans.Spelling.Hint(label, known)}; labels there: {string.Join(", ", known)}.");
+                }
+            int count = InPlan(plan, "trial", () => input.TrialCount(condition, plan.Trial));
+            TrialChecks.CheckCount(plan, condition, input.EventLabels.Count(condition.EventLabels.Contains), count, input.UnusableTrialCount(condition));
+            if (plan.Surrogates > 0)
+                InPlan(plan, "surrogates", () => { SurrogateTest.CheckFeasible(count, plan.Surrogates, condition.Name); return 0; });
             trialCounts[condition.Name] = count;
         }
-        foreach (var contrast in plan.Contrasts)
+        foreach (var contrast in plan.Contrasts.Where(_ => plan.Surrogates > 0))
             InPlan(plan, "contrasts", () =>
             {
                 ConditionContrast.CheckFeasible(trialCounts[contrast.ConditionA], trialCounts[contrast.ConditionB], plan.Surrogates, contrast.Name);
                 return 0;
             });
 
-        var warnings = new List<string>();
+        var warnings = new List<string>(BandWarnings.For(plan, decompositions, input.SampleRate, input.EpochSamples));
         int pairs = Measures.PairIndex.Count(input.Channels.Count);
         int needed = (int)Math.Ceiling(pairs / plan.Q) - 1;
-        if (plan.Surrogates < needed)
+        if (plan.Surrogates > 0 && plan.Surrogates < needed)
         {
             int k = (int)Math.Ceiling(pairs / (plan.Q * (plan.Surrogates + 1)));
             string reach = k > pairs
@@ -91,6 +101,7 @@ public static class AnalysisRunner
                 $"With {plan.Surrogates} surrogates the smallest attainable p is 1/{plan.Surrogates + 1}; across {pairs} pairs at q = {plan.Q:G3} {reach}. " +
                 $"Use at least {needed} surrogates for a single coupled pair to be detectable."));
         }
+        foreach (var w in warnings) onWarning?.Invoke(w);
 
         var results = new List<PairResult>();
         var summaries = new List<ConditionSummary>();
@@ -126,8 +137,9 @@ public static class AnalysisRunner
                     sets[bi] = null;
                     var stageProgress = progress is null ? null
                         : new Progress<int>(done => progress.Report(new RunProgress($"{stage}: surrogates", done, plan.Surrogates)));
-                    return SurrogateTest.Run(narrowband, plan.Measures, plan.Surrogates, Seeds.For(plan.Seed, ci, bi), conditionName,
-                        workers > 0 ? workers : null, stageProgress, cancellationToken);
+                    return plan.Surrogates == 0 ? ValuesOnly.Compute(narrowband, plan.Measures)
+                        : SurrogateTest.Run(narrowband, plan.Measures, plan.Surrogates, Seeds.For(plan.Seed, ci, bi), conditionName,
+                            workers > 0 ? workers : null, stageProgress, cancellationToken);
                 }
                 var tested = units?.Condition(ci, bi, UnfinishedRun.ConditionUnit(conditionName, plan.Bands[bi].Name), Compute) ?? Compute();
                 sets[bi] = null;
@@ -171,8 +183,9 @@ public static class AnalysisRunner
                     var b = NarrowbandExtractor.Extract(trialsB, decompositions[bi], plan.Window, steps[bi], workers);
                     var stageProgress = progress is null ? null
                         : new Progress<int>(done => progress.Report(new RunProgress($"{stage}: label permutations", done, plan.Surrogates)));
-                    return ConditionContrast.Run(a, b, plan.Measures, plan.Surrogates, Seeds.ForContrast(plan.Seed, ki, bi), contrast.Name,
-                        workers > 0 ? workers : null, stageProgress, cancellationToken);
+                    return plan.Surrogates == 0 ? ValuesOnly.Compare(a, b, plan.Measures)
+                        : ConditionContrast.Run(a, b, plan.Measures, plan.Surrogates, Seeds.ForContrast(plan.Seed, ki, bi), contrast.Name,
+                            workers > 0 ? workers : null, stageProgress, cancellationToken);
                 }
                 var tested = units?.Contrast(ki, bi, UnfinishedRun.ContrastUnit(contrast.Name, plan.Bands[bi].Name), Compute) ?? Compute();
                 foreach (var m in tested)
@@ -198,6 +211,6 @@ public static class AnalysisRunner
     private static T InPlan<T>(Plan plan, string key, Func<T> check)
     {
         try { return check(); }
-        catch (InputException e) { throw new InputException($"{plan.Source}: {key}: {e.Message}", e); }
+        catch (InputException e) { throw new InputException($"{plan.Where(key)}: {e.Message}", e); }
     }
 }

@@ -13,7 +13,7 @@ namespace Coupling.Pipeline;
 /// <remarks>
 /// Everything is written into a temporary sibling folder that is renamed into place only when all of it is written
 /// (<see cref="OutputFolder"/>): a stopped or failed run leaves no partial results and keeps an older folder.
-/// Layout (docs/outputs.md): report.md, manifest.json, edges.tsv, nodes.tsv, matrices/, graphs/, figures/, and with
+/// Layout (docs/outputs.md): report.md, manifest.json, edges.tsv, nodes.tsv, graphs.tsv, matrices/, graphs/, figures/, and with
 /// contrasts in the plan contrasts.tsv, matrices/contrasts/ and figures/contrasts/.
 /// </remarks>
 public static class ResultsWriter
@@ -52,15 +52,20 @@ public static class ResultsWriter
             written.Add($"graphs/{stem}.graphml");
             if (plan.Figures)
             {
-                MatrixFigure.Save(r, folder.PathOf($"figures/{stem}_matrix.png"));
-                NetworkFigure.Save(r, folder.PathOf($"figures/{stem}_network.png"));
-                written.Add($"figures/{stem}_matrix.png");
-                written.Add($"figures/{stem}_network.png");
+                foreach (var (kind, save) in Figures(r, null))
+                {
+                    if (kind == "network" && plan.Surrogates == 0) continue; // values only: no significant pairs to draw a network of
+                    string[] files = [$"figures/{stem}_{kind}.png", $"figures/{stem}_{kind}.svg"];
+                    save(files.Select(folder.PathOf).ToArray());
+                    written.AddRange(files);
+                }
             }
         }
         progress?.Report(new RunProgress("writing results", total, total));
         NodeTableWriter.Write(graphs, folder.PathOf("nodes.tsv"));
         written.Add("nodes.tsv");
+        GraphTableWriter.Write(graphs, folder.PathOf("graphs.tsv"));
+        written.Add("graphs.tsv");
 
         if (analysis.Contrasts.Count > 0)
         {
@@ -76,10 +81,13 @@ public static class ResultsWriter
                 {
                     string stem = OutputNames.Stem(difference);
                     string label = $"{difference.Measure} difference";
-                    MatrixFigure.Save(difference, folder.PathOf($"figures/contrasts/{stem}_matrix.png"), valueLabel: label);
-                    NetworkFigure.Save(difference, folder.PathOf($"figures/contrasts/{stem}_network.png"), valueLabel: label);
-                    written.Add($"figures/contrasts/{stem}_matrix.png");
-                    written.Add($"figures/contrasts/{stem}_network.png");
+                    foreach (var (kind, save) in Figures(difference, label))
+                    {
+                        if (kind == "network" && plan.Surrogates == 0) continue;
+                        string[] files = [$"figures/contrasts/{stem}_{kind}.png", $"figures/contrasts/{stem}_{kind}.svg"];
+                        save(files.Select(folder.PathOf).ToArray());
+                        written.AddRange(files);
+                    }
                 }
             }
         }
@@ -117,4 +125,11 @@ public static class ResultsWriter
         folder.Commit();
         return folder.TargetPath;
     }
+
+    /// <summary>The figures of a result: name part and a writer taking the paths (PNG and SVG) to write.</summary>
+    private static (string Kind, Action<string[]> Save)[] Figures(PairResult r, string? label) =>
+    [
+        ("matrix", paths => MatrixFigure.Save(r, paths, valueLabel: label)),
+        ("network", paths => NetworkFigure.Save(r, paths, valueLabel: label)),
+    ];
 }

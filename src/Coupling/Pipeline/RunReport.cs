@@ -45,6 +45,9 @@ public static class RunReport
         sb.AppendLine($"- Evoked response: {(plan.SubtractEvoked ? "each condition's trial mean subtracted before band isolation" : "kept (trial-shuffle surrogates keep it too, so it is not called coupling)")}");
         sb.AppendLine($"- Band isolation: {plan.Decomposition.Method}; every trial padded by {analysis.PadSamples} samples at each end");
         sb.AppendLine($"- Measures: {string.Join(", ", plan.Measures.Select(MeasureCatalog.Key))}");
+        if (plan.Surrogates == 0)
+            sb.AppendLine("- Significance: not tested (surrogates: 0, values only); p, z and corrected p are empty (NA) and no pair is significant");
+        else
         sb.AppendLine($"- Significance: {plan.Surrogates} trial-shuffle surrogates per condition and band (seed {plan.Seed}); p = (b+1)/(M+1); " +
                       $"Benjamini-Hochberg false discovery rate at q = {plan.Q.ToString("G4", inv)} across the pairs of each condition x band x measure");
         sb.AppendLine();
@@ -107,7 +110,7 @@ public static class RunReport
         sb.AppendLine("- Trial-shuffle surrogates keep each channel's stimulus-locked (evoked) activity, so a response shared only through the stimulus is not significant; " +
                       "the null hypothesis is no trial-by-trial dependence between the two channels.");
         sb.AppendLine("- Correction is within each condition x band x measure; looking across many tables raises the chance of a false finding again.");
-        sb.AppendLine("- Files: edges.tsv (every pair), nodes.tsv (degree, strength), matrices/ (CSV), graphs/ (GraphML), figures/ (PNG), manifest.json (everything the run depended on)" +
+        sb.AppendLine("- Files: edges.tsv (every pair), nodes.tsv (degree, strength, clustering, component, module), graphs.tsv (graph measures), matrices/ (CSV), graphs/ (GraphML), figures/ (PNG and SVG), manifest.json (everything the run depended on)" +
                       (analysis.Contrasts.Count > 0 ? "; contrasts.tsv, matrices/contrasts/ and figures/contrasts/ (condition differences)." : "."));
         AtomicFile.WriteAllText(path, sb.ToString());
     }

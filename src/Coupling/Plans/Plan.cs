@@ -74,4 +74,20 @@ public sealed record Plan
 
     /// <summary>Worker threads for surrogate draws; 0 for all cores.</summary>
     public int Threads { get; init; }
+
+    /// <summary>For an EDF file shorter than its header promises: analyse the complete data records it holds (and say how
+    /// many in the manifest and report) instead of refusing it.</summary>
+    public bool KeepCompleteRecords { get; init; }
+
+    /// <summary>What to do with NaN or infinite samples, flat channels and clipped EDF samples: "refuse" (the default),
+    /// "drop-trials" or "drop-channels" (see <see cref="Pipeline.UnusableData"/>).</summary>
+    public string UnusableData { get; init; } = Pipeline.UnusableData.Refuse;
+
+    /// <summary>Line in <see cref="Source"/> of each top-level key and of each key one level below ("bands.theta"); empty for generated plans.</summary>
+    [System.Text.Json.Serialization.JsonIgnore]
+    public IReadOnlyDictionary<string, int> KeyLines { get; init; } = new Dictionary<string, int>();
+
+    /// <summary>Where a key is in the plan, for messages: "plan.yaml, line 12: bands.theta", or without the line when unknown.</summary>
+    public string Where(string key) =>
+        KeyLines.TryGetValue(key, out int line) ? $"{Source}, line {line}: {key}" : $"{Source}: {key}";
 }

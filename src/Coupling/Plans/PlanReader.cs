@@ -18,11 +18,11 @@ public static class PlanReader
     [
         "recording", "events", "channels", "sample_rate", "epochs", "conditions", "trial", "window", "evoked",
         "bands", "decomposition", "measures", "surrogates", "seed", "correction", "output", "figures", "threads",
-        "contrasts", "overwrite",
+        "contrasts", "overwrite", "truncated_recording", "unusable_data",
     ];
 
-    /// <summary>Fewest surrogate draws the <c>surrogates</c> key allows.</summary>
-    public const int MinSurrogates = 1;
+    /// <summary>Fewest surrogate draws the <c>surrogates</c> key allows (0: values without a test).</summary>
+    public const int MinSurrogates = 0;
 
     /// <summary>Most surrogate draws the <c>surrogates</c> key allows.</summary>
     public const int MaxSurrogates = 1_000_000;
@@ -30,9 +30,12 @@ public static class PlanReader
     /// <summary>Reads the plan at <paramref name="path"/>; relative paths inside it are taken from the plan's folder.</summary>
     public static Plan Read(string path)
     {
+        if (Directory.Exists(path)) throw new InputException($"{path}: is a folder; expected a plan file (YAML).");
         if (!File.Exists(path)) throw new InputException($"{path}: plan file not found.");
-        using var reader = new StreamReader(path);
-        return Parse(reader, Path.GetFullPath(path));
+        string text;
+        try { text = File.ReadAllText(path); }
+        catch (Exception e) when (FileErrors.IsFileError(e)) { throw FileErrors.Reading(path, "plan file", e); }
+        return Parse(new StringReader(text), Path.GetFullPath(path));
     }
 
     /// <summary>Parses plan text; <paramref name="source"/> names it in errors and anchors relative paths.</summary>
@@ -43,7 +46,7 @@ public static class PlanReader
         try { stream.Load(new StringReader(all)); }
         catch (YamlException e)
         {
-            throw new InputException($"{source}, line {e.Start.Line}: not valid YAML ({e.Message}).", e);
+            throw new InputException($"{source}, line {e.Start.Line}: not valid YAML ({e.Message.Trim().TrimEnd('.')}).", e);
         }
         catch (InvalidOperationException e)
         {
@@ -115,6 +118,8 @@ public static class PlanReader
         bool figures = !map.TryGetValue("figures", out var fi) || ctx.Bool(fi, "figures");
         bool overwrite = map.TryGetValue("overwrite", out var ow) && ctx.Bool(ow, "overwrite");
         int threads = map.TryGetValue("threads", out var th) ? ctx.Int(th, "threads", 0, 4096) : 0;
+        bool keepComplete = map.TryGetValue("truncated_recording", out var tr)
+            && ctx.Choice(tr, "truncated_recording", ["refuse", "keep-complete-records"]) == "keep-complete-records";
 
         return new Plan
         {
@@ -139,7 +144,25 @@ public static class PlanReader
             Figures = figures,
             Overwrite = overwrite,
             Threads = threads,
+            KeepCompleteRecords = keepComplete,
+            UnusableData = map.TryGetValue("unusable_data", out var ud) ? ctx.Choice(ud, "unusable_data", Pipeline.UnusableData.Policies) : Pipeline.UnusableData.Refuse,
+            KeyLines = KeyLines(root),
         };
+    }
+
+    /// <summary>The line of every top-level key and of every key one level below it ("bands.theta").</summary>
+    private static Dictionary<string, int> KeyLines(YamlMappingNode root)
+    {
+        var lines = new Dictionary<string, int>(StringComparer.Ordinal);
+        foreach (var (k, v) in root.Children)
+        {
+            if (k is not YamlScalarNode { Value: { } key }) continue;
+            lines.TryAdd(key, (int)k.Start.Line);
+            if (v is YamlMappingNode inner)
+                foreach (var (ik, _) in inner.Children)
+                    if (ik is YamlScalarNode { Value: { } name }) lines.TryAdd($"{key}.{name}", (int)ik.Start.Line);
+        }
+        return lines;
     }
 
     private static IReadOnlyList<ContrastSpec> ReadContrasts(Context ctx, YamlNode node, IReadOnlyList<ConditionSpec> conditions)
@@ -250,7 +273,7 @@ public static class PlanReader
             try { list.Add(MeasureCatalog.Parse(k)); }
             catch (InputException)
             {
-                throw ctx.Error(node, "measures", $"'{k}' is not a known measure; allowed: all, {string.Join(", ", MeasureCatalog.All.Select(MeasureCatalog.Key))}");
+                throw ctx.Error(node, "measures", $"'{k}' is not a known measure{Spelling.Hint(k, MeasureCatalog.All.Select(MeasureCatalog.Key))}; allowed: all, {string.Join(", ", MeasureCatalog.All.Select(MeasureCatalog.Key))}");
             }
         }
         return list;
@@ -289,7 +312,7 @@ public static class PlanReader
             {
                 string key = Scalar(k, where);
                 if (!allowed.Contains(key))
-                    throw Error(k, where == "the plan" ? key : $"{where}.{key}", $"unknown key; allowed here: {string.Join(", ", allowed)}");
+                    throw Error(k, where == "the plan" ? key : $"{where}.{key}", $"unknown key{Spelling.Hint(key, allowed)}; allowed here: {string.Join(", ", allowed)}");
                 if (!result.TryAdd(key, v)) throw Error(k, key, "given twice");
             }
             return result;
@@ -319,6 +342,13 @@ public static class PlanReader
             string s = Scalar(node, key);
             return int.TryParse(s, NumberStyles.AllowLeadingSign, CultureInfo.InvariantCulture, out int v) && v >= min && v <= max
                 ? v : throw Error(node, key, $"'{s}' is not a whole number from {min} to {max}");
+        }
+
+        public string Choice(YamlNode node, string key, IReadOnlyList<string> allowed)
+        {
+            string v = Scalar(node, key);
+            return allowed.Contains(v) ? v
+                : throw Error(node, key, $"'{v}' is not allowed{Spelling.Hint(v, allowed)}; use {string.Join(" or ", allowed.Select(a => $"'{a}'"))}");
         }
 
         public bool Bool(YamlNode node, string key) => Scalar(node, key) switch

@@ -34,9 +34,6 @@ tool="$root/src/Coupling.Cli/bin/Release/net10.0/Coupling.Cli.dll"
 mkdir -p "$dir"
 [[ -f "$dir/epochs.npy" ]] || "$python" "$here/array_route.py" generate "$dir"
 cd "$dir"
-# The tool's results folders from an earlier call (written by this script's runs) are replaced by each run; a folder
-# left by an older build of the tool is cleared here once, since the tool replaces only folders it recognises.
-rm -rf results-plv results-four
 
 commands=("array|$python $here/array_route.py compute $dir"
           "plv|dotnet $tool run plan-plv.yaml"
@@ -48,6 +45,8 @@ for ((r = 1 - warmups; r <= rounds; r++)); do
         entry="${commands[$(((i + r + 3 * warmups) % 3))]}"
         name="${entry%%|*}"
         load="$(cut -d' ' -f1 /proc/loadavg)"
+        # Each tool run writes a new results folder; the previous run's (written by this script) is removed first.
+        [[ "$name" == array ]] || rm -rf "$dir/results-$name"
         if ! /usr/bin/time -f '%e\t%U\t%S\t%M' -o "$dir/.time" ${entry#*|} >"$dir/$name.out" 2>&1; then
             echo "$name failed; its output:" >&2
             cat "$dir/$name.out" >&2

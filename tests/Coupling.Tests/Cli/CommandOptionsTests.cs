@@ -82,9 +82,9 @@ public sealed class CommandOptionsTests : IDisposable
         Assert.Equal(9UL, (ulong)manifest["seed"]!);
         Assert.Equal(other, (string)manifest["plan"]!["output"]!);
 
-        (code, _, err) = Cli("run", plan, "--surrogates", "0");
+        (code, _, err) = Cli("run", plan, "--surrogates", "-1");
         Assert.Equal(2, code);
-        Assert.Contains("--surrogates: 0 is not a whole number from 1", err);
+        Assert.Contains("--surrogates: -1 is not a whole number from 0", err);
         (code, _, err) = Cli("run", plan, "--seed", "-1");
         Assert.Equal(2, code);
     }

@@ -46,8 +46,13 @@ public class GraphMlWriterTests
         (string, string, string)[] expected =
         [
             ("graph", "condition", "string"), ("graph", "band", "string"), ("graph", "measure", "string"),
+            ("graph", "components", "int"), ("graph", "modules", "int"), ("graph", "modularity", "double"),
+            ("graph", "efficiency", "double"), ("graph", "efficiency_weighted", "double"),
+            ("graph", "clustering", "double"), ("graph", "clustering_weighted", "double"),
             ("node", "label", "string"), ("node", "x", "double"), ("node", "y", "double"),
             ("node", "degree", "int"), ("node", "strength", "double"),
+            ("node", "clustering", "double"), ("node", "clustering_weighted", "double"),
+            ("node", "component", "int"), ("node", "module", "int"),
             ("edge", "weight", "double"), ("edge", "value", "double"), ("edge", "z", "double"),
             ("edge", "p", "double"), ("edge", "p_corrected", "double"),
         ];

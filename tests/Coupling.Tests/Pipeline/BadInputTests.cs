@@ -90,7 +90,8 @@ public sealed class BadInputTests(SmallScenario scenario) : IClassFixture<SmallS
 
     [Fact]
     public void A_band_above_the_nyquist_frequency_is_refused() =>
-        Refused(Small(plan: SmallStudy.PlanText(bands: "{ alpha: [8, 12], high: [90, 110] }")), "plan.yaml: bands.high:", "Nyquist frequency 100 Hz");
+        // The plan text puts 'bands' on line 8 (SmallStudy.PlanText); the message names the band's line.
+        Refused(Small(plan: SmallStudy.PlanText(bands: "{ alpha: [8, 12], high: [90, 110] }")), "plan.yaml, line 8: bands.high:", "Nyquist frequency 100 Hz");
 
     [Fact]
     public void A_trial_span_longer_than_the_recording_is_refused() =>
@@ -101,8 +102,8 @@ public sealed class BadInputTests(SmallScenario scenario) : IClassFixture<SmallS
     {
         var output = new StringWriter();
         Assert.Equal(0, CommandLine.Run(["simulate", "--trials", "4", "--output", _folder["sim"]], output, new StringWriter()));
-        // 4 trials allow 4! = 24 orders, fewer than the plan's 1000 surrogates.
-        Refused(Path.Combine(_folder["sim"], "plan.yaml"), "plan.yaml: surrogates:", "condition 'tone' has 4 trials", "at most 24 distinct trial orders", "1000 surrogates");
+        // 4 trials allow 4! = 24 orders, fewer than the plan's 1000 surrogates; the plan's 'surrogates' is on line 19.
+        Refused(Path.Combine(_folder["sim"], "plan.yaml"), "plan.yaml, line 19: surrogates:", "condition 'tone' has 4 trials", "at most 24 distinct trial orders", "1000 surrogates");
         Assert.False(Directory.Exists(Path.Combine(_folder["sim"], "results")));
         Assert.DoesNotContain(Directory.EnumerateFileSystemEntries(_folder["sim"]), e => Path.GetFileName(e).StartsWith('.'));
     }
@@ -115,7 +116,7 @@ public sealed class BadInputTests(SmallScenario scenario) : IClassFixture<SmallS
         // split into two groups of 7 only C(14, 7) = 3432 ways, fewer than the 4000 label permutations asked.
         string plan = Path.Combine(_folder["sim"], "plan.yaml");
         File.WriteAllText(plan, File.ReadAllText(plan).Replace("surrogates: 1000", "surrogates: 4000"));
-        Refused(plan, "plan.yaml: contrasts:", "tone-vs-light", "at most 3432 distinct splits", "4000 surrogates");
+        Refused(plan, "plan.yaml, line 6: contrasts:", "tone-vs-light", "at most 3432 distinct splits", "4000 surrogates");
         Assert.False(Directory.Exists(Path.Combine(_folder["sim"], "results")));
     }
 

@@ -84,7 +84,7 @@ public sealed class EndToEndTests(ScenarioRun run)
     public void The_results_folder_holds_report_manifest_tables_graphs_and_figures()
     {
         Assert.Equal(Path.Combine(run.Paths.Folder, "results"), run.Outcome.OutputFolder);
-        foreach (var f in new[] { "report.md", "manifest.json", "edges.tsv", "nodes.tsv" })
+        foreach (var f in new[] { "report.md", "manifest.json", "edges.tsv", "nodes.tsv", "graphs.tsv" })
             Assert.True(File.Exists(run.Output(f)), f);
         int tables = run.Plan.Conditions.Count * run.Plan.Bands.Count * run.Plan.Measures.Count;
         Assert.Equal(2 * 4 * 9, tables);
@@ -104,7 +104,11 @@ public sealed class EndToEndTests(ScenarioRun run)
         {
             var (w, h) = PngHeader.Read(p);
             Assert.True(w > 100 && h > 100, $"{p}: {w}x{h}");
+            Assert.True(File.Exists(Path.ChangeExtension(p, ".svg")), $"{p}: no SVG beside it");
         }
+        // One row of graph measures per table, one row of node measures per channel per table.
+        Assert.Equal(tables + 1, File.ReadAllLines(run.Output("graphs.tsv")).Length);
+        Assert.Equal(10 * tables + 1, File.ReadAllLines(run.Output("nodes.tsv")).Length);
         // No temporary sibling is left beside the committed folder.
         Assert.Equal(["plan.yaml", "results", "scenario.edf", "scenario_channels.tsv", "scenario_electrodes.tsv", "truth.json"],
             Directory.EnumerateFileSystemEntries(run.Paths.Folder).Select(p => Path.GetFileName(p)!).Order(StringComparer.Ordinal).ToArray());
@@ -200,6 +204,7 @@ public sealed class EndToEndTests(ScenarioRun run)
         Assert.Equal(4 * 9, run.Outcome.Contrasts.Count);
         Assert.Equal(3 * 4 * 9, Directory.GetFiles(run.Output("matrices/contrasts"), "*.csv").Length);
         Assert.Equal(2 * 4 * 9, Directory.GetFiles(run.Output("figures/contrasts"), "*.png").Length);
+        Assert.Equal(2 * 4 * 9, Directory.GetFiles(run.Output("figures/contrasts"), "*.svg").Length);
         Assert.Contains("## Condition contrasts", File.ReadAllText(run.Output("report.md")));
     }
 }
