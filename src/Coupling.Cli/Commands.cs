@@ -3,6 +3,7 @@ using Coupling.Formats;
 using Coupling.Pipeline;
 using Coupling.Plans;
 using Coupling.Simulation;
+using Coupling.Statistics;
 
 namespace Coupling.Cli;
 
@@ -20,6 +21,12 @@ internal static class Commands
         var plan = PlanReader.Read(paths.Plan) with { Overwrite = force };
         var outcome = Execute(plan, threads, $"coupling demo --output {folder}", error, restart: false, verbosity);
         PrintOutcome(outcome, plan, verbosity, output);
+        if (plan.Surrogates == 0)
+        {
+            output.WriteLine();
+            output.WriteLine($"Values only (--surrogates 0): nothing was tested, so nothing is compared with the ground truth ({paths.Truth}).");
+            return 0;
+        }
 
         var truth = TruthFile.Read(paths.Truth);
         var lines = TruthCheck.Compare(truth, outcome.Results).Concat(TruthCheck.CompareContrasts(truth, outcome.Contrasts)).ToArray();
@@ -143,10 +150,14 @@ internal static class Commands
         output.WriteLine($"Work units: {p.WorkUnits.Count} ({plan.Conditions.Count} condition(s) x {plan.Bands.Count} band(s)" +
             (plan.Contrasts.Count > 0 ? $", {plan.Contrasts.Count} contrast(s) x {plan.Bands.Count} band(s)" : "") + $"), {p.Surrogates} surrogates each");
         foreach (var u in p.WorkUnits) output.WriteLine($"  {u}{(p.KeptUnits.Contains(u) ? "   (kept by an interrupted run: loaded, not computed)" : "")}");
-        string verdict = p.Surrogates < p.SurrogatesForOneDiscovery ? " (too few for a lone coupled pair to pass the correction)." : ".";
+        string verdict = p.Surrogates == 0 ? " (values only, no test)."
+            : p.Surrogates < p.SurrogatesForOneDiscovery ? " (too few for a lone coupled pair to pass the correction)." : ".";
         output.WriteLine(string.Create(inv,
-            $"Surrogates needed for a single discovery among {p.Pairs} pairs at q = {plan.Q:G3}: at least {p.SurrogatesForOneDiscovery}; the plan has {p.Surrogates}{verdict}"));
-        output.WriteLine($"Output: {p.Output}{(Directory.Exists(p.Output) ? " (earlier results, to be replaced)" : "")}");
+            $"Surrogates needed for a single discovery among {p.Pairs} pairs at {(CorrectionSpec.ControlsFalseDiscoveries(plan.Correction.Method) ? "q" : "alpha")} = {plan.Q:G3} ({CorrectionSpec.Key(plan.Correction.Method)}): at least {p.SurrogatesForOneDiscovery}; the plan has {p.Surrogates}{verdict}"));
+        foreach (var w in p.Warnings) output.WriteLine($"warning: {w}");
+        string state = !Directory.Exists(p.Output) ? " (new)"
+            : Directory.EnumerateFileSystemEntries(p.Output).Any() ? " (earlier results, to be replaced)" : " (an empty folder, to be filled)";
+        output.WriteLine($"Output: {p.Output}{state}");
     }
 
     private static void PrintOutcome(RunOutcome outcome, Plan plan, Verbosity verbosity, TextWriter output)
@@ -157,7 +168,7 @@ internal static class Commands
             foreach (var w in outcome.Warnings) output.WriteLine($"  warning: {w}");
             return;
         }
-        output.WriteLine($"  report:   {Path.Combine(outcome.OutputFolder, "report.md")}");
+        output.WriteLine($"  report:   {Path.Combine(outcome.OutputFolder, "report.html")}");
         output.WriteLine($"  edges:    {Path.Combine(outcome.OutputFolder, "edges.tsv")}");
         if (Directory.Exists(Path.Combine(outcome.OutputFolder, "figures")))
             output.WriteLine($"  figures:  {Path.Combine(outcome.OutputFolder, "figures")}");

@@ -4,7 +4,8 @@ using Coupling.Benchmarks;
 // Entry point: "w1 [--channels N] [--trials N] [--draws N] [--conditions N] [--threads N] [--step K]" times the
 // reference workload end to end; "kernels [...]" times each kernel group; "precision PLAN [--draws N]" compares
 // single-precision storage with double; "figures [--channels N] [--repeats N]" times figure drawing and writing;
-// "stages PLAN [--threads N]" times each stage of a plan's analysis; anything else goes to BenchmarkDotNet.
+// "corrections [--channels N] [--trials N] [--times N] [--draws N] [--threads N]" times the surrogate stage under each
+// correction; "stages PLAN [--threads N]" times each stage of a plan's analysis; anything else goes to BenchmarkDotNet.
 if (args.Length > 1 && args[0] == "stages")
 {
     int i = Array.IndexOf(args, "--threads");
@@ -17,7 +18,7 @@ if (args.Length > 1 && args[0] == "precision")
     Precision.Run(args[1], i > 0 ? int.Parse(args[i + 1], System.Globalization.CultureInfo.InvariantCulture) : 1000, Console.Out);
     return 0;
 }
-if (args.Length > 0 && (args[0] == "w1" || args[0] == "kernels" || args[0] == "figures"))
+if (args.Length > 0 && (args[0] == "w1" || args[0] == "kernels" || args[0] == "figures" || args[0] == "corrections"))
 {
     int Option(string name, int fallback)
     {
@@ -28,6 +29,9 @@ if (args.Length > 0 && (args[0] == "w1" || args[0] == "kernels" || args[0] == "f
     if (args[0] == "w1")
         EndToEnd.Run(Option("channels", 64), Option("trials", 100), Option("draws", 1000), Option("conditions", 2),
             Option("threads", 0), step, Console.Out);
+    else if (args[0] == "corrections")
+        CorrectionTiming.Run(Option("channels", 64), Option("trials", 50), Option("times", 16), Option("draws", 499),
+            Option("threads", 0), Option("repeats", 3), Console.Out);
     else if (args[0] == "figures")
         FigureTiming.Run(Option("channels", 10), Option("repeats", 9), Console.Out);
     else

@@ -19,6 +19,7 @@ public static class ContrastTableWriter
     [
         "contrast", "condition_a", "condition_b", "band", "measure", "channel_a", "channel_b",
         "value_a", "value_b", "difference", "z", "p", "p_corrected", "significant",
+        .. CorrectionColumns.Names,
     ];
 
     /// <summary>Writes all pairs of <paramref name="results"/> to <paramref name="path"/>.</summary>
@@ -37,7 +38,7 @@ public static class ContrastTableWriter
             PairResultShape.Check(r.AsDifference());
             if (r.ValueA.Length != r.Difference.Length || r.ValueB.Length != r.Difference.Length)
                 throw new ArgumentException($"Contrast {r.Contrast}/{r.Band}/{r.Measure}: value arrays differ in length from the differences.");
-            int c = r.Channels.Count;
+            int c = r.Channels.Count, family = CorrectionColumns.FamilySize(r.P);
             for (int k = 0; k < r.Difference.Length; k++)
             {
                 var (a, b) = PairIndex.Channels(k, c);
@@ -47,6 +48,7 @@ public static class ContrastTableWriter
                     TableText.Number(r.ValueA[k]), TableText.Number(r.ValueB[k]), TableText.Number(r.Difference[k]),
                     TableText.Number(r.Z[k]), TableText.Number(r.P[k]), TableText.Number(r.PCorrected[k]),
                     r.Significant[k] ? "true" : "false",
+                    .. CorrectionColumns.Cells(r.Correction, family, k),
                 ];
             }
         }

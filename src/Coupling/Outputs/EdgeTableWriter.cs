@@ -20,7 +20,8 @@ public static class EdgeTableWriter
 {
     /// <summary>The header row, in order.</summary>
     public static IReadOnlyList<string> Columns { get; } =
-        ["condition", "band", "measure", "channel_a", "channel_b", "value", "z", "p", "p_corrected", "significant"];
+        ["condition", "band", "measure", "channel_a", "channel_b", "value", "z", "p", "p_corrected", "significant",
+         .. CorrectionColumns.Names, "ci_low", "ci_high", "value_matched", "unbiased_in_trials"];
 
     /// <summary>Writes all pairs of <paramref name="results"/> to <paramref name="path"/>.</summary>
     /// <returns>The number of data rows written.</returns>
@@ -36,7 +37,9 @@ public static class EdgeTableWriter
         foreach (var r in results)
         {
             PairResultShape.Check(r);
-            int c = r.Channels.Count;
+            int c = r.Channels.Count, family = CorrectionColumns.FamilySize(r.P);
+            string unbiased = MeasureCatalog.All.Where(m => MeasureCatalog.Key(m) == r.Measure)
+                .Select(m => Statistics.TrialResampling.IsUnbiasedInTrials(m) ? "true" : "false").FirstOrDefault() ?? "NA";
             for (int k = 0; k < r.Value.Length; k++)
             {
                 var (a, b) = PairIndex.Channels(k, c);
@@ -45,6 +48,11 @@ public static class EdgeTableWriter
                     r.Condition, r.Band, r.Measure, r.Channels[a], r.Channels[b], TableText.Number(r.Value[k]),
                     TableText.Number(r.Z[k]), TableText.Number(r.P[k]), TableText.Number(r.PCorrected[k]),
                     r.Significant[k] ? "true" : "false",
+                    .. CorrectionColumns.Cells(r.Correction, family, k),
+                    r.IntervalLow is null ? "NA" : TableText.Number(r.IntervalLow[k]),
+                    r.IntervalHigh is null ? "NA" : TableText.Number(r.IntervalHigh[k]),
+                    r.ValueMatched is null ? "NA" : TableText.Number(r.ValueMatched[k]),
+                    unbiased,
                 ];
             }
         }

@@ -11,6 +11,9 @@ namespace Coupling.Pipeline;
 /// <param name="PadSamples">Padding samples at each end of every trial.</param>
 /// <param name="Warnings">Things the reader of the results must know (e.g. too few surrogates for any discovery).</param>
 /// <param name="Contrasts">One tested difference table per contrast x band x measure, in the plan's order; empty without contrasts.</param>
+/// <param name="Directions">Direction of the significant pairs per condition x band (plan key <c>direction</c>); null when not asked.</param>
+/// <param name="Signals">Channel power, stimulus locking and pair coherency lags per condition x band; null when not computed.</param>
+/// <param name="SurrogateExample">The surrogate draws of one edge for the report's figure; null when none was drawn.</param>
 public sealed record Analysis(
     IReadOnlyList<PairResult> Results,
     IReadOnlyList<ConditionSummary> Conditions,
@@ -18,4 +21,7 @@ public sealed record Analysis(
     IReadOnlyList<int> TimeSteps,
     int PadSamples,
     IReadOnlyList<string> Warnings,
-    IReadOnlyList<ContrastPairResult> Contrasts);
+    IReadOnlyList<ContrastPairResult> Contrasts,
+    IReadOnlyList<PairDirection>? Directions = null,
+    IReadOnlyList<BandSignalSummary>? Signals = null,
+    SurrogateDistribution? SurrogateExample = null);

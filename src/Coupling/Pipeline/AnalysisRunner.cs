@@ -32,6 +32,7 @@ public static class AnalysisRunner
         var clock = Stopwatch.StartNew();
         int workers = threads > 0 ? threads : plan.Threads;
 
+        Outputs.OutputFolder.RemoveLeftovers(plan.Output);
         PlanInputs.CheckOutput(plan);
         var units = UnfinishedRun.Open(plan, restart);
         progress?.Report(new RunProgress("reading input", 0, 0));
@@ -44,7 +45,8 @@ public static class AnalysisRunner
         try { written = ResultsWriter.Write(plan, input, analysis, new RunContext(started, clock.Elapsed, commandLine, workers, units.Resumed), progress); }
         catch (Exception e) when (FileErrors.IsFileError(e) && e is not FileAccessException) { throw FileErrors.Writing(plan.Output, "results folder", e); }
         units.Remove();
-        return new RunOutcome(written, analysis.Results, analysis.Conditions, analysis.Warnings, clock.Elapsed, analysis.Contrasts, units.Resumed);
+        return new RunOutcome(written, analysis.Results, analysis.Conditions, analysis.Warnings, clock.Elapsed, analysis.Contrasts, units.Resumed,
+            analysis.Signals, analysis.SurrogateExample);
     }
 
     /// <summary>
@@ -69,12 +71,7 @@ public static class AnalysisRunner
         var trialCounts = new Dictionary<string, int>(StringComparer.Ordinal);
         foreach (var condition in plan.Conditions)
         {
-            foreach (var label in condition.EventLabels)
-                if (!input.EventLabels.Contains(label))
-                {
-                    var known = input.EventLabels.Distinct().Order(StringComparer.Ordinal).ToArray();
-                    throw new InputException($"{plan.Where($"conditions.{condition.Name}")}: event label '{label}' does not occur in {input.Source}{Plans.Spelling.Hint(label, known)}; labels there: {string.Join(", ", known)}.");
-                }
+            TrialChecks.CheckLabels(plan, condition, input);
             int count = InPlan(plan, "trial", () => input.TrialCount(condition, plan.Trial));
             TrialChecks.CheckCount(plan, condition, input.EventLabels.Count(condition.EventLabels.Contains), count, input.UnusableTrialCount(condition));
             if (plan.Surrogates > 0)
@@ -88,23 +85,35 @@ public static class AnalysisRunner
                 return 0;
             });
 
+        SurrogateExample.CheckChannels(plan, input.Channels.Select(c => c.Label).ToArray());
+
         var warnings = new List<string>(BandWarnings.For(plan, decompositions, input.SampleRate, input.EpochSamples));
         int pairs = Measures.PairIndex.Count(input.Channels.Count);
-        int needed = (int)Math.Ceiling(pairs / plan.Q) - 1;
-        if (plan.Surrogates > 0 && plan.Surrogates < needed)
+        var floor = SurrogateFloor.Of(plan.Correction, plan.Q, pairs);
+        int needed = floor.Needed;
+        if (plan.Surrogates > 0 && floor.Applies && plan.Surrogates < needed)
         {
-            int k = (int)Math.Ceiling(pairs / (plan.Q * (plan.Surrogates + 1)));
+            int k = (int)Math.Ceiling(floor.Multiplier * pairs / (plan.Q * (plan.Surrogates + 1)));
             string reach = k > pairs
                 ? $"no pair can pass the correction whatever the data (that would take {k} pairs at that p, and only {pairs} are tested)"
                 : $"a pair can pass the correction only if at least {k} pairs reach that p";
             warnings.Add(string.Create(CultureInfo.InvariantCulture,
                 $"With {plan.Surrogates} surrogates the smallest attainable p is 1/{plan.Surrogates + 1}; across {pairs} pairs at q = {plan.Q:G3} {reach}. " +
-                $"Use at least {needed} surrogates for a single coupled pair to be detectable."));
+                $"Use at least {needed} surrogates for a single coupled pair to be detectable, or a family-wise correction (max-statistic) or the Pareto tail."));
         }
+        else if (plan.Surrogates > 0 && !floor.Applies && !plan.Correction.ParetoTail && plan.Surrogates < needed)
+            warnings.Add(string.Create(CultureInfo.InvariantCulture,
+                $"With {plan.Surrogates} surrogates the smallest attainable p is 1/{plan.Surrogates + 1}, above alpha = {plan.Q:G3}: no pair can be significant. Use at least {needed} surrogates."));
         foreach (var w in warnings) onWarning?.Invoke(w);
 
+        // Corrections that need the draws themselves (maxima, tails) are computed whole, not kept as resumable units;
+        // without surrogates (values only) there is nothing to correct.
+        bool draws = FamilyCorrection.NeedsDraws(plan.Correction) && plan.Surrogates > 0;
+        var pValueCorrection = FamilyCorrection.NeedsDraws(plan.Correction) ? new CorrectionSpec(CorrectionMethod.None) : plan.Correction;
         var results = new List<PairResult>();
+        var directions = plan.Direction ? new List<PairDirection>() : null;
         var summaries = new List<ConditionSummary>();
+        var signals = new List<BandSignalSummary>();
         // A condition with a unit kept by an interrupted run is isolated band by band, so kept bands are not isolated again.
         var kept = units?.KeptUnits(plan) ?? [];
         for (int ci = 0; ci < plan.Conditions.Count; ci++)
@@ -115,10 +124,10 @@ public static class AnalysisRunner
             string conditionName = trials.Condition;
             var channels = trials.Channels;
             // Memory: when every band's narrowband set together is smaller than the padded trials, isolate them all
-            // first and let the trials go before the surrogate tests (BandOrder).
+            // first and let the trials go before the surrogate tests (BandOrder); the direction step needs the trials.
             var sets = new NarrowbandSet?[decompositions.Length];
             bool resuming = plan.Bands.Any(b => kept.Contains(UnfinishedRun.ConditionUnit(conditionName, b.Name)));
-            if (!resuming && BandOrder.IsolateAllFirst(trials, plan.Window, steps))
+            if (!resuming && directions is null && BandOrder.IsolateAllFirst(trials, plan.Window, steps))
             {
                 for (int bi = 0; bi < decompositions.Length; bi++)
                 {
@@ -130,30 +139,51 @@ public static class AnalysisRunner
             for (int bi = 0; bi < decompositions.Length; bi++)
             {
                 string stage = $"{conditionName} / {plan.Bands[bi].Name}";
-                IReadOnlyList<SurrogateResult> Compute()
-                {
-                    if (sets[bi] is null) progress?.Report(new RunProgress($"{stage}: band isolation", 0, 0));
-                    var narrowband = sets[bi] ?? NarrowbandExtractor.Extract(trials!, decompositions[bi], plan.Window, steps[bi], workers);
-                    sets[bi] = null;
-                    var stageProgress = progress is null ? null
-                        : new Progress<int>(done => progress.Report(new RunProgress($"{stage}: surrogates", done, plan.Surrogates)));
-                    return plan.Surrogates == 0 ? ValuesOnly.Compute(narrowband, plan.Measures)
-                        : SurrogateTest.Run(narrowband, plan.Measures, plan.Surrogates, Seeds.For(plan.Seed, ci, bi), conditionName,
-                            workers > 0 ? workers : null, stageProgress, cancellationToken);
-                }
-                var tested = units?.Condition(ci, bi, UnfinishedRun.ConditionUnit(conditionName, plan.Bands[bi].Name), Compute) ?? Compute();
+                NarrowbandSet? extracted = sets[bi];
                 sets[bi] = null;
-                foreach (var m in tested)
+                NarrowbandSet Narrowband()
                 {
-                    var corrected = FalseDiscoveryRate.BenjaminiHochbergOfDefined(m.P);
-                    var significant = corrected.Select(q => q <= plan.Q).ToArray();
-                    results.Add(new PairResult(conditionName, plan.Bands[bi].Name, MeasureCatalog.Key(m.Measure), channels,
-                        m.Observed, m.Z, m.P, corrected, significant, input.Channels.Select(c => c.Position).ToArray()));
+                    if (extracted is not null) return extracted;
+                    progress?.Report(new RunProgress($"{stage}: band isolation", 0, 0));
+                    return extracted = NarrowbandExtractor.Extract(trials!, decompositions[bi], plan.Window, steps[bi], workers);
                 }
+                var stageProgress = progress is null ? null
+                    : new Progress<int>(done => progress.Report(new RunProgress($"{stage}: surrogates", done, plan.Surrogates)));
+                IReadOnlyList<SurrogateResult> Compute() => plan.Surrogates == 0 ? ValuesOnly.Compute(Narrowband(), plan.Measures)
+                    : SurrogateTest.Run(Narrowband(), plan.Measures, plan.Surrogates, Seeds.For(plan.Seed, ci, bi), conditionName,
+                        workers > 0 ? workers : null, stageProgress, cancellationToken);
+                var tested = draws
+                    ? FamilyCorrection.TestCondition(Narrowband(), plan.Measures, plan.Surrogates, Seeds.For(plan.Seed, ci, bi),
+                        conditionName, plan.Correction, plan.Q, workers > 0 ? workers : null, stageProgress, cancellationToken)
+                    : (units?.Condition(ci, bi, UnfinishedRun.ConditionUnit(conditionName, plan.Bands[bi].Name), Compute) ?? Compute())
+                        .Select(t => (t, FamilyCorrection.FromPValues(pValueCorrection, plan.Q, t.P))).ToArray();
+                var (low, high) = plan.JackknifeIntervals ? TrialResampling.Jackknife(Narrowband(), plan.Measures) : (null, null);
+                var matched = plan.MatchTrials > 0
+                    ? TrialResampling.Matched(Narrowband(), plan.Measures, trialCounts.Values.Min(), plan.MatchTrials, Seeds.ForMatching(plan.Seed, ci, bi))
+                    : null;
+                signals.Add(SignalSummaries.Summarise(Narrowband(), conditionName));
+                double[]? Slice(double[]? all, int k) => all?.AsSpan(k * pairs, pairs).ToArray();
+                for (int k = 0; k < tested.Count; k++)
+                {
+                    var (m, o) = tested[k];
+                    results.Add(new PairResult(conditionName, plan.Bands[bi].Name, MeasureCatalog.Key(m.Measure), channels,
+                        m.Observed, m.Z, o.P, o.PCorrected, o.Significant, input.Channels.Select(c => c.Position).ToArray(), o,
+                        Slice(low, k), Slice(high, k), Slice(matched, k)));
+                }
+                if (directions is not null)
+                    directions.AddRange(DirectionStep.Run(trials!, Narrowband(), plan.Bands[bi], plan.Window,
+                    results.Skip(results.Count - tested.Count).ToArray(), plan.Surrogates, Seeds.ForDirection(plan.Seed, ci, bi)));
             }
         }
         var contrasts = Contrast(plan, input, decompositions, steps, pad, progress, workers, cancellationToken, units);
-        return new Analysis(results, summaries, decompositions.Select(d => d.Info).ToArray(), steps, pad, warnings, contrasts);
+        SurrogateDistribution? example = null;
+        if (plan.Figures && plan.Surrogates > 0 && SurrogateExample.Choose(plan, results) is var (r, pair, chosen))
+        {
+            int bi = plan.Bands.ToList().FindIndex(b => b.Name == results[r].Band);
+            progress?.Report(new RunProgress($"{results[r].Condition} / {results[r].Band}: surrogate draws of one edge", 0, 0));
+            example = SurrogateExample.Compute(plan, input, results[r], pair, chosen, decompositions[bi], steps[bi], pad, workers);
+        }
+        return new Analysis(results, summaries, decompositions.Select(d => d.Info).ToArray(), steps, pad, warnings, contrasts, directions, signals, example);
     }
 
     /// <summary>
@@ -165,6 +195,8 @@ public static class AnalysisRunner
     private static List<ContrastPairResult> Contrast(Plan plan, LoadedInput input, IBandDecomposition[] decompositions, int[] steps,
         int pad, IProgress<RunProgress>? progress, int workers, CancellationToken cancellationToken, UnfinishedRun? units)
     {
+        bool draws = FamilyCorrection.NeedsDraws(plan.Correction) && plan.Surrogates > 0;
+        var pValueCorrection = FamilyCorrection.NeedsDraws(plan.Correction) ? new CorrectionSpec(CorrectionMethod.None) : plan.Correction;
         var results = new List<ContrastPairResult>();
         var positions = input.Channels.Select(c => c.Position).ToArray();
         for (int ki = 0; ki < plan.Contrasts.Count; ki++)
@@ -176,25 +208,40 @@ public static class AnalysisRunner
             {
                 cancellationToken.ThrowIfCancellationRequested();
                 string stage = $"{contrast.ConditionA} vs {contrast.ConditionB} / {plan.Bands[bi].Name}";
+                NarrowbandSet? extractedA = null, extractedB = null;
+                (NarrowbandSet A, NarrowbandSet B) Narrowband()
+                {
+                    if (extractedA is null || extractedB is null)
+                    {
+                        progress?.Report(new RunProgress($"{stage}: band isolation", 0, 0));
+                        extractedA = NarrowbandExtractor.Extract(trialsA, decompositions[bi], plan.Window, steps[bi], workers);
+                        extractedB = NarrowbandExtractor.Extract(trialsB, decompositions[bi], plan.Window, steps[bi], workers);
+                    }
+                    return (extractedA, extractedB);
+                }
+                var stageProgress = progress is null ? null
+                    : new Progress<int>(done => progress.Report(new RunProgress($"{stage}: label permutations", done, plan.Surrogates)));
                 IReadOnlyList<ContrastResult> Compute()
                 {
-                    progress?.Report(new RunProgress($"{stage}: band isolation", 0, 0));
-                    var a = NarrowbandExtractor.Extract(trialsA, decompositions[bi], plan.Window, steps[bi], workers);
-                    var b = NarrowbandExtractor.Extract(trialsB, decompositions[bi], plan.Window, steps[bi], workers);
-                    var stageProgress = progress is null ? null
-                        : new Progress<int>(done => progress.Report(new RunProgress($"{stage}: label permutations", done, plan.Surrogates)));
+                    var (a, b) = Narrowband();
                     return plan.Surrogates == 0 ? ValuesOnly.Compare(a, b, plan.Measures)
                         : ConditionContrast.Run(a, b, plan.Measures, plan.Surrogates, Seeds.ForContrast(plan.Seed, ki, bi), contrast.Name,
                             workers > 0 ? workers : null, stageProgress, cancellationToken);
                 }
-                var tested = units?.Contrast(ki, bi, UnfinishedRun.ContrastUnit(contrast.Name, plan.Bands[bi].Name), Compute) ?? Compute();
-                foreach (var m in tested)
+                IReadOnlyList<(ContrastResult, FamilyOutcome)> tested;
+                if (draws)
                 {
-                    var corrected = FalseDiscoveryRate.BenjaminiHochbergOfDefined(m.P);
-                    var significant = corrected.Select(q => q <= plan.Q).ToArray();
-                    results.Add(new ContrastPairResult(contrast.Name, contrast.ConditionA, contrast.ConditionB, plan.Bands[bi].Name,
-                        MeasureCatalog.Key(m.Measure), trialsA.Channels, m.ValueA, m.ValueB, m.Difference, m.Z, m.P, corrected, significant, positions));
+                    var (a, b) = Narrowband();
+                    tested = FamilyCorrection.TestContrast(a, b, plan.Measures, plan.Surrogates, Seeds.ForContrast(plan.Seed, ki, bi),
+                        contrast.Name, plan.Correction, plan.Q, workers > 0 ? workers : null, stageProgress, cancellationToken);
                 }
+                else
+                    tested = (units?.Contrast(ki, bi, UnfinishedRun.ContrastUnit(contrast.Name, plan.Bands[bi].Name), Compute) ?? Compute())
+                        .Select(t => (t, FamilyCorrection.FromPValues(pValueCorrection, plan.Q, t.P))).ToArray();
+                foreach (var (m, o) in tested)
+                    results.Add(new ContrastPairResult(contrast.Name, contrast.ConditionA, contrast.ConditionB, plan.Bands[bi].Name,
+                        MeasureCatalog.Key(m.Measure), trialsA.Channels, m.ValueA, m.ValueB, m.Difference, m.Z, o.P, o.PCorrected,
+                        o.Significant, positions, o));
             }
         }
         return results;

@@ -56,17 +56,17 @@ public static class InputLoader
         IReadOnlyList<List<(int Start, int Length)>> runs, string kind, double rate, List<string> notes)
     {
         var keep = new List<int>();
+        var reasons = new List<string>();
         for (int c = 0; c < channels.Count; c++)
         {
-            if (isFlat(c))
-                notes.Add($"Channel '{channels[c].Label}' left out (unusable_data: {plan.UnusableData}): flat (every sample equal).");
-            else if (plan.UnusableData == UnusableData.DropChannels && runs[c].Count > 0)
-                notes.Add($"Channel '{channels[c].Label}' left out (unusable_data: {plan.UnusableData}): {UnusableData.Describe(runs[c], kind, rate)}.");
-            else
-                keep.Add(c);
+            string? reason = isFlat(c) ? "flat (every sample equal)"
+                : plan.UnusableData == UnusableData.DropChannels && runs[c].Count > 0 ? UnusableData.Describe(runs[c], kind, rate) : null;
+            if (reason is null) { keep.Add(c); continue; }
+            notes.Add($"Channel '{channels[c].Label}' left out (unusable_data: {plan.UnusableData}): {reason}.");
+            reasons.Add($"'{channels[c].Label}': {reason}");
         }
         if (keep.Count < 2)
-            throw new InputException($"{plan.Where("unusable_data")}: connectivity needs at least 2 channels, but only {keep.Count} remain once unusable ones are left out ({string.Join(" ", notes.Where(n => n.StartsWith("Channel '", StringComparison.Ordinal)))})");
+            throw new InputException($"{plan.Where("unusable_data")}: connectivity needs at least 2 channels, but {keep.Count} remain{(keep.Count == 1 ? "s" : "")} once the unusable ones are left out ({string.Join("; ", reasons)}).");
         return keep.ToArray();
     }
 

@@ -21,22 +21,8 @@ public static class PlanCheck
         var kept = UnfinishedRun.Open(plan);
         var input = InputLoader.Load(plan);
 
-        var conditions = new List<ConditionSummary>();
-        foreach (var condition in plan.Conditions)
-        {
-            foreach (var label in condition.EventLabels)
-                if (!input.EventLabels.Contains(label))
-                    throw new InputException($"{plan.Source}: conditions.{condition.Name}: event label '{label}' does not occur in {input.Source}; labels there: {string.Join(", ", input.EventLabels.Distinct().Order(StringComparer.Ordinal))}.");
-            int count = input.TrialCount(condition, plan.Trial);
-            InPlan(plan, "surrogates", () => SurrogateTest.CheckFeasible(count, plan.Surrogates, condition.Name));
-            conditions.Add(new ConditionSummary(condition.Name, count, []));
-        }
-        foreach (var contrast in plan.Contrasts)
-            InPlan(plan, "contrasts", () => ConditionContrast.CheckFeasible(
-                conditions.First(c => c.Condition == contrast.ConditionA).Trials, conditions.First(c => c.Condition == contrast.ConditionB).Trials,
-                plan.Surrogates, contrast.Name));
-
         var bands = new List<BandPreview>();
+        var decompositions = new List<IBandDecomposition>();
         foreach (var band in plan.Bands)
         {
             IBandDecomposition d = null!;
@@ -45,14 +31,32 @@ public static class PlanCheck
             int kernel = (int)(d.Info.Parameters.TryGetValue("filter_taps", out double taps) ? taps : d.Info.Parameters["support_samples"]);
             int step = plan.Decomposition.TimeStep ?? TimeStep.Default(d.Info, input.SampleRate);
             bands.Add(new BandPreview(band.Name, d.Info.Method, kernel, kernel / input.SampleRate, d.PadSamples, step, d.Info));
+            decompositions.Add(d);
         }
+        if (plan.UnusableData == UnusableData.DropTrials) input = input.WithoutUnusableTrials(plan.Trial, decompositions.Max(d => d.PadSamples));
+
+        var conditions = new List<ConditionSummary>();
+        foreach (var condition in plan.Conditions)
+        {
+            TrialChecks.CheckLabels(plan, condition, input);
+            int count = 0;
+            InPlan(plan, "trial", () => count = input.TrialCount(condition, plan.Trial));
+            TrialChecks.CheckCount(plan, condition, input.EventLabels.Count(condition.EventLabels.Contains), count, input.UnusableTrialCount(condition));
+            if (plan.Surrogates > 0) InPlan(plan, "surrogates", () => SurrogateTest.CheckFeasible(count, plan.Surrogates, condition.Name));
+            conditions.Add(new ConditionSummary(condition.Name, count, []));
+        }
+        foreach (var contrast in plan.Contrasts.Where(_ => plan.Surrogates > 0))
+            InPlan(plan, "contrasts", () => ConditionContrast.CheckFeasible(
+                conditions.First(c => c.Condition == contrast.ConditionA).Trials, conditions.First(c => c.Condition == contrast.ConditionB).Trials,
+                plan.Surrogates, contrast.Name));
 
         var units = plan.Conditions.SelectMany(c => plan.Bands.Select(b => UnfinishedRun.ConditionUnit(c.Name, b.Name)))
             .Concat(plan.Contrasts.SelectMany(c => plan.Bands.Select(b => UnfinishedRun.ContrastUnit(c.Name, b.Name))))
             .ToArray();
         int pairs = PairIndex.Count(input.Channels.Count);
         return new PlanPreview(plan.Source, plan.Recording, input.SampleRate, input.Channels.Select(c => c.Label).ToArray(), conditions, bands,
-            units, kept.KeptUnits(plan), plan.Surrogates, pairs, (int)Math.Ceiling(pairs / plan.Q) - 1, plan.Output);
+            units, kept.KeptUnits(plan), plan.Surrogates, pairs, SurrogateFloor.Of(plan.Correction, plan.Q, pairs).Needed, plan.Output,
+            BandWarnings.For(plan, decompositions, input.SampleRate, input.EpochSamples));
     }
 
     private static void InPlan(Plan plan, string key, Action check)

@@ -9,11 +9,13 @@ namespace Coupling.Pipeline;
 /// <param name="Bands">Per band: decomposition, kernel length, padding and time step.</param>
 /// <param name="WorkUnits">The work units of the run (condition x band, then contrast x band), as the manifest names them.</param>
 /// <param name="KeptUnits">Work units an interrupted earlier run kept that the run would load rather than compute.</param>
-/// <param name="Surrogates">Surrogate draws per unit.</param>
+/// <param name="Surrogates">Surrogate draws per unit (0: values without a test).</param>
 /// <param name="Pairs">Channel pairs per table.</param>
 /// <param name="SurrogatesForOneDiscovery">Fewest surrogates with which a single coupled pair can pass the correction,
-/// ⌈pairs / q⌉ − 1 (its smallest p, 1/(M + 1), must reach q / pairs).</param>
+/// ⌈pairs / q⌉ − 1 for Benjamini-Hochberg (its smallest p, 1/(M + 1), must reach q / pairs), ⌈c(m)·pairs / q⌉ − 1 for
+/// Benjamini-Yekutieli, ⌈1/alpha⌉ − 1 for the family-wise corrections and none, 1 with the Pareto tail.</param>
 /// <param name="Output">The results folder.</param>
+/// <param name="Warnings">Warnings about the bands that the run would give too (e.g. too few cycles in the window).</param>
 public sealed record PlanPreview(
     string Plan,
     string Recording,
@@ -26,4 +28,5 @@ public sealed record PlanPreview(
     int Surrogates,
     int Pairs,
     int SurrogatesForOneDiscovery,
-    string Output);
+    string Output,
+    IReadOnlyList<string> Warnings);

@@ -1,10 +1,12 @@
 using System.Text.Json;
 using System.Text.Json.Nodes;
 using System.Text.Json.Serialization;
+using Coupling.Artefacts;
 using Coupling.Figures;
 using Coupling.Graphs;
 using Coupling.Outputs;
 using Coupling.Plans;
+using Coupling.Reports;
 using Coupling.Results;
 
 namespace Coupling.Pipeline;
@@ -13,7 +15,7 @@ namespace Coupling.Pipeline;
 /// <remarks>
 /// Everything is written into a temporary sibling folder that is renamed into place only when all of it is written
 /// (<see cref="OutputFolder"/>): a stopped or failed run leaves no partial results and keeps an older folder.
-/// Layout (docs/outputs.md): report.md, manifest.json, edges.tsv, nodes.tsv, graphs.tsv, matrices/, graphs/, figures/, and with
+/// Layout (docs/outputs.md): report.html, manifest.json, edges.tsv, nodes.tsv, graphs.tsv, flags.tsv, matrices/, graphs/, figures/, and with
 /// contrasts in the plan contrasts.tsv, matrices/contrasts/ and figures/contrasts/.
 /// </remarks>
 public static class ResultsWriter
@@ -92,8 +94,26 @@ public static class ResultsWriter
             }
         }
 
-        RunReport.Write(plan, input, analysis, graphs.Select(g => g.Item4).ToArray(), folder.PathOf("report.md"));
-        written.Add("report.md");
+        if (analysis.Directions is not null)
+        {
+            DirectionTableWriter.Write(analysis.Directions, folder.PathOf("directions.tsv"));
+            written.Add("directions.tsv");
+        }
+
+        var flags = ArtefactFlags.Find(analysis.Results, analysis.Signals ?? [], plan.SubtractEvoked);
+        FlagTableWriter.Write(flags, folder.PathOf("flags.tsv"));
+        written.Add("flags.tsv");
+        if (plan.Figures && analysis.Results.Count > 0)
+        {
+            OverviewFigure.Save(analysis.Results, folder.PathOf($"figures/{HtmlReport.OverviewFile}"));
+            written.Add($"figures/{HtmlReport.OverviewFile}");
+            if (analysis.SurrogateExample is { } example)
+            {
+                SurrogateFigure.Save(example, folder.PathOf($"figures/{HtmlReport.SurrogateFile}"));
+                written.Add($"figures/{HtmlReport.SurrogateFile}");
+            }
+        }
+        written.Add("report.html");
 
         var manifest = new Manifest
         {
@@ -118,9 +138,13 @@ public static class ResultsWriter
                 ["threads"] = context.Threads,
                 ["analysis_seconds"] = context.Elapsed.TotalSeconds,
                 ["input_notes"] = new JsonArray(input.Notes.Select(n => (JsonNode)JsonValue.Create(n)!).ToArray()),
+                ["correction"] = CorrectionText.Manifest(plan.Correction, plan.Q),
                 ["warnings"] = new JsonArray(analysis.Warnings.Select(n => (JsonNode)JsonValue.Create(n)!).ToArray()),
             },
         };
+        var report = new ReportContent(plan, manifest, analysis, input.Source, input.SampleRate, input.Channels.Select(c => c.Label).ToArray(),
+            input.Notes, flags, ArtefactFlags.Unchecked(plan.Measures.Select(Measures.MeasureCatalog.Key).ToArray(), plan.SubtractEvoked));
+        HtmlReport.Write(report, folder.WorkingPath, folder.PathOf("report.html"));
         ManifestWriter.Write(manifest, folder.PathOf("manifest.json"));
         folder.Commit();
         return folder.TargetPath;

@@ -71,7 +71,7 @@ public static class ScenarioFiles
         sb.AppendLine($"measures: [{string.Join(", ", MeasureCatalog.All.Select(MeasureCatalog.Key))}]");
         sb.AppendLine(string.Create(inv, $"surrogates: {surrogates}"));
         sb.AppendLine(string.Create(inv, $"seed: {truth.Seed}"));
-        sb.AppendLine("correction: { method: fdr-bh, q: 0.05 }");
+        sb.AppendLine("correction: { method: benjamini-hochberg, q: 0.05 }");
         sb.AppendLine("output: results");
         sb.AppendLine("figures: true");
         return sb.ToString();

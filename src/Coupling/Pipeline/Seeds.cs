@@ -18,6 +18,17 @@ public static class Seeds
     public static ulong ForContrast(ulong seed, int contrast, int band) =>
         Mix(seed, (1UL << 40) + 1 + (ulong)contrast * 1024 + (ulong)band);
 
+    /// <summary>
+    /// A seed for the trial subsets that match condition <paramref name="condition"/> in band <paramref name="band"/> to the
+    /// smallest trial count, with an index offset by 2^41 (apart from <see cref="For"/> and <see cref="ForContrast"/>).
+    /// </summary>
+    public static ulong ForMatching(ulong seed, int condition, int band) =>
+        Mix(seed, (1UL << 41) + 1 + (ulong)condition * 1024 + (ulong)band);
+
+    /// <summary>A seed for the phase-slope-index surrogates of condition x band, with an index offset by 2^42.</summary>
+    public static ulong ForDirection(ulong seed, int condition, int band) =>
+        Mix(seed, (1UL << 42) + 1 + (ulong)condition * 1024 + (ulong)band);
+
     private static ulong Mix(ulong seed, ulong index)
     {
         ulong z = unchecked(seed + 0x9E3779B97F4A7C15UL * index);

@@ -45,5 +45,17 @@ public static class TrialChecks
         throw new InputException($"{where}: only {kept} trial{(kept == 1 ? "" : "s")}{outside}; {need}.");
     }
 
+    /// <summary>Refuses a condition whose event labels do not all occur in the input, suggesting the closest label.</summary>
+    /// <exception cref="InputException">A label does not occur; the message names the condition's line and the labels there.</exception>
+    public static void CheckLabels(Plan plan, ConditionSpec condition, LoadedInput input)
+    {
+        foreach (var label in condition.EventLabels)
+            if (!input.EventLabels.Contains(label))
+            {
+                var known = input.EventLabels.Distinct().Order(StringComparer.Ordinal).ToArray();
+                throw new InputException($"{plan.Where($"conditions.{condition.Name}")}: event label '{label}' does not occur in {input.Source}{Spelling.Hint(label, known)}; labels there: {string.Join(", ", known)}.");
+            }
+    }
+
     private static int Factorial(int n) => n <= 1 ? 1 : n * Factorial(n - 1);
 }

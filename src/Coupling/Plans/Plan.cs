@@ -1,5 +1,6 @@
 using Coupling.Measures;
 using Coupling.Spectral;
+using Coupling.Statistics;
 
 namespace Coupling.Plans;
 
@@ -57,8 +58,21 @@ public sealed record Plan
     /// <summary>Seed of every random choice in the run.</summary>
     public ulong Seed { get; init; }
 
-    /// <summary>False discovery rate level for the Benjamini-Hochberg correction.</summary>
+    /// <summary>Level of the correction across pairs: the false discovery rate q, or the family-wise error rate alpha
+    /// (see <see cref="Correction"/>); for no correction, the per-pair level.</summary>
     public double Q { get; init; } = 0.05;
+
+    /// <summary>Whether leave-one-trial-out jackknife 95 % intervals of the values are computed (plan key <c>intervals: jackknife</c>).</summary>
+    public bool JackknifeIntervals { get; init; }
+
+    /// <summary>Random subsets per condition for values matched to the smallest condition's trial count; 0 for no matching.</summary>
+    public int MatchTrials { get; init; }
+
+    /// <summary>Whether direction (coherency phase, lag, leader, phase-slope index) is computed for significant pairs (plan key <c>direction</c>).</summary>
+    public bool Direction { get; init; }
+
+    /// <summary>The correction across pairs and its options.</summary>
+    public CorrectionSpec Correction { get; init; } = CorrectionSpec.Default;
 
     /// <summary>Results folder (created whole when the run succeeds).</summary>
     public required string Output { get; init; }
@@ -71,6 +85,9 @@ public sealed record Plan
 
     /// <summary>Whether PNG figures are drawn.</summary>
     public bool Figures { get; init; } = true;
+
+    /// <summary>The edge whose surrogate distribution is drawn; null for the strongest significant edge.</summary>
+    public SurrogateFigureSpec? SurrogateFigure { get; init; }
 
     /// <summary>Worker threads for surrogate draws; 0 for all cores.</summary>
     public int Threads { get; init; }

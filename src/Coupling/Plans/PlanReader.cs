@@ -1,6 +1,7 @@
 using System.Globalization;
 using Coupling.Measures;
 using Coupling.Spectral;
+using Coupling.Statistics;
 using YamlDotNet.Core;
 using YamlDotNet.RepresentationModel;
 
@@ -18,7 +19,7 @@ public static class PlanReader
     [
         "recording", "events", "channels", "sample_rate", "epochs", "conditions", "trial", "window", "evoked",
         "bands", "decomposition", "measures", "surrogates", "seed", "correction", "output", "figures", "threads",
-        "contrasts", "overwrite", "truncated_recording", "unusable_data",
+        "contrasts", "overwrite", "truncated_recording", "unusable_data", "intervals", "match_trials", "direction", "surrogate_figure",
     ];
 
     /// <summary>Fewest surrogate draws the <c>surrogates</c> key allows (0: values without a test).</summary>
@@ -111,13 +112,26 @@ public static class PlanReader
         }
         else throw ctx.Error(root, "seed", "give a 'seed' (a non-negative whole number) so the surrogates can be reproduced");
 
-        double q = 0.05;
-        if (map.TryGetValue("correction", out var co)) q = ReadCorrection(ctx, co);
+        var (correction, q) = map.TryGetValue("correction", out var co) ? ReadCorrection(ctx, co) : (CorrectionSpec.Default, 0.05);
+
+        bool jackknife = false;
+        if (map.TryGetValue("intervals", out var iv))
+        {
+            string v = ctx.Scalar(iv, "intervals");
+            jackknife = v switch
+            {
+                "none" => false,
+                "jackknife" => true,
+                _ => throw ctx.Error(iv, "intervals", $"'{v}' is not allowed; use 'none' or 'jackknife' (leave-one-trial-out 95 % intervals)"),
+            };
+        }
+        int matchTrials = map.TryGetValue("match_trials", out var mt) ? ctx.Int(mt, "match_trials", 0, 100_000) : 0;
 
         string output = ctx.Path(ctx.Required(map, root, "output", "the plan"), "output");
         bool figures = !map.TryGetValue("figures", out var fi) || ctx.Bool(fi, "figures");
         bool overwrite = map.TryGetValue("overwrite", out var ow) && ctx.Bool(ow, "overwrite");
         int threads = map.TryGetValue("threads", out var th) ? ctx.Int(th, "threads", 0, 4096) : 0;
+        var surrogateFigure = map.TryGetValue("surrogate_figure", out var sf) ? ReadSurrogateFigure(ctx, sf, conditions, bands, measures) : null;
         bool keepComplete = map.TryGetValue("truncated_recording", out var tr)
             && ctx.Choice(tr, "truncated_recording", ["refuse", "keep-complete-records"]) == "keep-complete-records";
 
@@ -140,10 +154,15 @@ public static class PlanReader
             Surrogates = surrogates,
             Seed = seed,
             Q = q,
+            Correction = correction,
+            JackknifeIntervals = jackknife,
+            MatchTrials = matchTrials,
+            Direction = map.TryGetValue("direction", out var dr) && ctx.Bool(dr, "direction"),
             Output = output,
             Figures = figures,
             Overwrite = overwrite,
             Threads = threads,
+            SurrogateFigure = surrogateFigure,
             KeepCompleteRecords = keepComplete,
             UnusableData = map.TryGetValue("unusable_data", out var ud) ? ctx.Choice(ud, "unusable_data", Pipeline.UnusableData.Policies) : Pipeline.UnusableData.Refuse,
             KeyLines = KeyLines(root),
@@ -163,6 +182,26 @@ public static class PlanReader
                     if (ik is YamlScalarNode { Value: { } name }) lines.TryAdd($"{key}.{name}", (int)ik.Start.Line);
         }
         return lines;
+    }
+
+    private static SurrogateFigureSpec ReadSurrogateFigure(Context ctx, YamlNode node, IReadOnlyList<ConditionSpec> conditions,
+        IReadOnlyList<Band> bands, IReadOnlyList<Measure> measures)
+    {
+        const string key = "surrogate_figure";
+        var m = ctx.Keys(node, key, ["condition", "band", "measure", "channels"]);
+        string condition = ctx.Scalar(ctx.Required(m, node, "condition", key), $"{key}.condition");
+        if (!conditions.Any(c => c.Name == condition))
+            throw ctx.Error(m["condition"], $"{key}.condition", $"'{condition}' is not a condition of the plan; conditions: {string.Join(", ", conditions.Select(c => c.Name))}");
+        string band = ctx.Scalar(ctx.Required(m, node, "band", key), $"{key}.band");
+        if (!bands.Any(b => b.Name == band))
+            throw ctx.Error(m["band"], $"{key}.band", $"'{band}' is not a band of the plan; bands: {string.Join(", ", bands.Select(b => b.Name))}");
+        string measure = ctx.Scalar(ctx.Required(m, node, "measure", key), $"{key}.measure");
+        if (!measures.Any(x => MeasureCatalog.Key(x) == measure))
+            throw ctx.Error(m["measure"], $"{key}.measure", $"'{measure}' is not a measure of the plan; measures: {string.Join(", ", measures.Select(MeasureCatalog.Key))}");
+        var channels = ctx.StringList(ctx.Required(m, node, "channels", key), $"{key}.channels", unique: true);
+        if (channels.Count != 2)
+            throw ctx.Error(m["channels"], $"{key}.channels", $"expected two channel labels, e.g. [C3, C4], got {channels.Count}");
+        return new SurrogateFigureSpec(condition, band, measure, channels[0], channels[1]);
     }
 
     private static IReadOnlyList<ContrastSpec> ReadContrasts(Context ctx, YamlNode node, IReadOnlyList<ConditionSpec> conditions)
@@ -279,15 +318,54 @@ public static class PlanReader
         return list;
     }
 
-    private static double ReadCorrection(Context ctx, YamlNode node)
+    private static (CorrectionSpec Spec, double Level) ReadCorrection(Context ctx, YamlNode node)
     {
-        var m = ctx.Keys(node, "correction", ["method", "q"]);
-        if (m.TryGetValue("method", out var mn) && ctx.Scalar(mn, "correction.method") != "fdr-bh")
-            throw ctx.Error(mn, "correction.method", $"'{ctx.Scalar(mn, "correction.method")}' is not allowed; use 'fdr-bh' (Benjamini-Hochberg false discovery rate)");
-        if (!m.TryGetValue("q", out var qn)) return 0.05;
-        double q = ctx.Number(qn, "correction.q");
-        if (!(q > 0 && q < 1)) throw ctx.Error(qn, "correction.q", $"expected a level between 0 and 1, got {Fmt(q)}");
-        return q;
+        var m = ctx.Keys(node, "correction", ["method", "q", "alpha", "tail", "threshold"]);
+        var method = CorrectionMethod.BenjaminiHochberg;
+        if (m.TryGetValue("method", out var mn))
+        {
+            string v = ctx.Scalar(mn, "correction.method");
+            var known = Enum.GetValues<CorrectionMethod>().Where(c => CorrectionSpec.Key(c) == v).ToArray();
+            if (known.Length == 1) method = known[0];
+            else if (v == "fdr-bh")
+                throw ctx.Error(mn, "correction.method", "'fdr-bh' is no longer a method name; write 'benjamini-hochberg' (the same false discovery rate procedure)");
+            else
+                throw ctx.Error(mn, "correction.method", $"'{v}' is not allowed; use {string.Join(", ", Enum.GetValues<CorrectionMethod>().Select(CorrectionSpec.Key))}");
+        }
+        bool fdr = CorrectionSpec.ControlsFalseDiscoveries(method);
+        string levelKey = fdr ? "q" : "alpha", otherKey = fdr ? "alpha" : "q";
+        if (m.TryGetValue(otherKey, out var wrong))
+            throw ctx.Error(wrong, $"correction.{otherKey}", fdr
+                ? $"method '{CorrectionSpec.Key(method)}' controls the false discovery rate; give its level as 'q'"
+                : $"method '{CorrectionSpec.Key(method)}' controls the family-wise error rate (or none); give its level as 'alpha'");
+        double level = 0.05;
+        if (m.TryGetValue(levelKey, out var ln))
+        {
+            level = ctx.Number(ln, $"correction.{levelKey}");
+            if (!(level > 0 && level < 1)) throw ctx.Error(ln, $"correction.{levelKey}", $"expected a level between 0 and 1, got {Fmt(level)}");
+        }
+        bool pareto = false;
+        if (m.TryGetValue("tail", out var tn))
+        {
+            string v = ctx.Scalar(tn, "correction.tail");
+            pareto = v switch
+            {
+                "counted" => false,
+                "pareto" => true,
+                _ => throw ctx.Error(tn, "correction.tail", $"'{v}' is not allowed; use 'counted' (p from exceedance counts) or 'pareto' (generalised Pareto tail beyond the counts)"),
+            };
+            if (pareto && method is CorrectionMethod.MaxStatistic or CorrectionMethod.NetworkBased)
+                throw ctx.Error(tn, "correction.tail", $"'pareto' refines per-pair p-values; method '{CorrectionSpec.Key(method)}' takes its p-values from the maxima over pairs instead");
+        }
+        double? threshold = null;
+        if (m.TryGetValue("threshold", out var th))
+        {
+            if (method != CorrectionMethod.NetworkBased)
+                throw ctx.Error(th, "correction.threshold", "'threshold' applies to method 'network-based' only");
+            threshold = ctx.Positive(th, "correction.threshold");
+        }
+        else if (method == CorrectionMethod.NetworkBased) threshold = CorrectionSpec.DefaultThreshold;
+        return (new CorrectionSpec(method, pareto, threshold), level);
     }
 
     private static void CheckName(Context ctx, YamlNode node, string key, string name)
@@ -348,7 +426,7 @@ public static class PlanReader
         {
             string v = Scalar(node, key);
             return allowed.Contains(v) ? v
-                : throw Error(node, key, $"'{v}' is not allowed{Spelling.Hint(v, allowed)}; use {string.Join(" or ", allowed.Select(a => $"'{a}'"))}");
+                : throw Error(node, key, $"'{v}' is not allowed{Spelling.Hint(v, allowed)}; use {string.Join(", ", allowed.SkipLast(1).Select(a => $"'{a}'"))} or '{allowed[^1]}'");
         }
 
         public bool Bool(YamlNode node, string key) => Scalar(node, key) switch

@@ -16,9 +16,10 @@ namespace Coupling.Results;
 /// <param name="Difference">ValueA − ValueB per pair.</param>
 /// <param name="Z">(difference − permutation mean) / permutation standard deviation, per pair.</param>
 /// <param name="P">Uncorrected two-sided permutation p-value (b+1)/(M+1), per pair.</param>
-/// <param name="PCorrected">Benjamini-Hochberg adjusted p-value across the pairs of this table.</param>
+/// <param name="PCorrected">Adjusted p-value across the pairs of this table (the plan's correction, Benjamini-Hochberg by default).</param>
 /// <param name="Significant">Whether the corrected p is at or below the plan's level.</param>
 /// <param name="Positions">Channel positions where known (same order as <paramref name="Channels"/>), else null.</param>
+/// <param name="Correction">The correction's details (method, level, p source per pair, network components), when known.</param>
 public sealed record ContrastPairResult(
     string Contrast,
     string ConditionA,
@@ -33,12 +34,13 @@ public sealed record ContrastPairResult(
     double[] P,
     double[] PCorrected,
     bool[] Significant,
-    IReadOnlyList<Formats.ChannelPosition?>? Positions = null)
+    IReadOnlyList<Formats.ChannelPosition?>? Positions = null,
+    Statistics.FamilyOutcome? Correction = null)
 {
     /// <summary>
     /// The difference as a <see cref="PairResult"/> (Value = difference, condition "A vs B"), for the writers and
     /// figures that take one.
     /// </summary>
     public PairResult AsDifference() =>
-        new($"{ConditionA} vs {ConditionB}", Band, Measure, Channels, Difference, Z, P, PCorrected, Significant, Positions);
+        new($"{ConditionA} vs {ConditionB}", Band, Measure, Channels, Difference, Z, P, PCorrected, Significant, Positions, Correction);
 }

@@ -12,9 +12,13 @@ namespace Coupling.Results;
 /// <param name="Value">Observed value per pair, summarised over the analysis window.</param>
 /// <param name="Z">(observed - surrogate mean) / surrogate standard deviation, per pair.</param>
 /// <param name="P">Uncorrected surrogate p-value (b+1)/(M+1), per pair.</param>
-/// <param name="PCorrected">Benjamini-Hochberg adjusted p-value across the pairs of this table.</param>
+/// <param name="PCorrected">Adjusted p-value across the pairs of this table (the plan's correction, Benjamini-Hochberg by default).</param>
 /// <param name="Significant">Whether the corrected p is at or below the plan's level.</param>
 /// <param name="Positions">Channel positions where known (same order as <paramref name="Channels"/>), else null.</param>
+/// <param name="Correction">The correction's details (method, level, p source per pair, network components), when known.</param>
+/// <param name="IntervalLow">Lower end of the jackknife 95 % interval of the value per pair, when computed.</param>
+/// <param name="IntervalHigh">Upper end of the jackknife 95 % interval of the value per pair, when computed.</param>
+/// <param name="ValueMatched">The value matched to the smallest condition's trial count (mean over random subsets), when computed.</param>
 public sealed record PairResult(
     string Condition,
     string Band,
@@ -25,4 +29,8 @@ public sealed record PairResult(
     double[] P,
     double[] PCorrected,
     bool[] Significant,
-    IReadOnlyList<Formats.ChannelPosition?>? Positions = null);
+    IReadOnlyList<Formats.ChannelPosition?>? Positions = null,
+    Statistics.FamilyOutcome? Correction = null,
+    double[]? IntervalLow = null,
+    double[]? IntervalHigh = null,
+    double[]? ValueMatched = null);

@@ -24,11 +24,12 @@ internal static class ChunkedDraws
     /// <summary>
     /// Runs draws 0..<paramref name="draws"/>−1. <paramref name="draw"/> computes draw d with a worker (one thread at a
     /// time per worker) and returns the values of every cell; workers are made by <paramref name="createWorker"/> as
-    /// threads need them, after <paramref name="first"/> (if given) is used.
+    /// threads need them, after <paramref name="first"/> (if given) is used. <paramref name="observer"/>, if given, sees
+    /// every draw's values too.
     /// </summary>
     public static NullAccumulator Run<TWorker>(int draws, double[] observedStatistic, bool[] twoSided, TWorker? first,
         Func<TWorker> createWorker, Func<TWorker, int, double[]> draw, int? maxThreads, IProgress<int>? progress,
-        CancellationToken cancellationToken)
+        CancellationToken cancellationToken, IDrawObserver? observer = null)
         where TWorker : class
     {
         int cells = observedStatistic.Length;
@@ -60,7 +61,11 @@ internal static class ChunkedDraws
                 accumulator.Reset();
                 int start = chunk * DrawsPerChunk, end = Math.Min(draws, start + DrawsPerChunk);
                 for (int d = start; d < end; d++)
-                    accumulator.Add(draw(worker, d), observedStatistic, twoSided);
+                {
+                    var values = draw(worker, d);
+                    accumulator.Add(values, observedStatistic, twoSided);
+                    observer?.Observe(d, values);
+                }
                 workers.Add(worker);
                 int finished = Interlocked.Add(ref done, end - start);
                 progress?.Report(finished);

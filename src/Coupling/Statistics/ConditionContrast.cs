@@ -46,7 +46,13 @@ public static class ConditionContrast
     /// <exception cref="ArgumentException">The sets differ in channels or time points; no measures or a measure listed twice.</exception>
     public static IReadOnlyList<ContrastResult> Run(NarrowbandSet a, NarrowbandSet b, IReadOnlyList<Measure> measures, int draws,
         ulong seed, string contrast, int? maxThreads = null, IProgress<int>? progress = null,
-        CancellationToken cancellationToken = default)
+        CancellationToken cancellationToken = default) =>
+        RunObserved(a, b, measures, draws, seed, contrast, maxThreads, progress, cancellationToken, null);
+
+    /// <summary>As the public <c>Run</c>, with <paramref name="observer"/> seeing every draw's differences (cells measure-major, pairs in PairIndex order).</summary>
+    internal static IReadOnlyList<ContrastResult> RunObserved(NarrowbandSet a, NarrowbandSet b, IReadOnlyList<Measure> measures, int draws,
+        ulong seed, string contrast, int? maxThreads, IProgress<int>? progress, CancellationToken cancellationToken,
+        IDrawObserver? observer)
     {
         ArgumentNullException.ThrowIfNull(a);
         ArgumentNullException.ThrowIfNull(b);
@@ -79,7 +85,7 @@ public static class ConditionContrast
         var total = ChunkedDraws.Run<SplitWorker>(draws, observedStatistic, twoSided, null,
             () => new SplitWorker(pooled, countA, measures),
             (worker, d) => worker.Draw(seed, d),
-            maxThreads, progress, cancellationToken);
+            maxThreads, progress, cancellationToken, observer);
 
         var results = new ContrastResult[slots];
         for (int k = 0; k < slots; k++)

@@ -5,7 +5,10 @@ namespace Coupling.Statistics;
 /// Benjamini and Hochberg (1995), "Controlling the false discovery rate: a practical and powerful approach to
 /// multiple testing", J R Stat Soc B 57(1):289-300: with the m p-values sorted, p_(1) ≤ ... ≤ p_(m), reject
 /// H_(1)..H_(k) for the largest k with p_(k) ≤ k·q/m (the step-up procedure). Valid for independent tests and under
-/// positive regression dependence (Benjamini and Yekutieli 2001, Ann Stat 29:1165).
+/// positive regression dependence (Benjamini and Yekutieli 2001, Ann Stat 29:1165). Benjamini and Yekutieli (2001),
+/// "The control of the false discovery rate in multiple testing under dependency", Ann Stat 29(4):1165-1188, theorem 1.3:
+/// the same step-up rule at level q/c(m), c(m) = Σ_{i=1..m} 1/i, controls the false discovery rate at q under any
+/// dependence.
 /// </remarks>
 public static class FalseDiscoveryRate
 {
@@ -45,7 +48,11 @@ public static class FalseDiscoveryRate
     /// correction stricter for the others.
     /// </summary>
     /// <exception cref="ArgumentException">A p-value outside [0, 1].</exception>
-    public static double[] BenjaminiHochbergOfDefined(ReadOnlySpan<double> p)
+    public static double[] BenjaminiHochbergOfDefined(ReadOnlySpan<double> p) => OfDefined(p, BenjaminiHochberg);
+
+    private delegate double[] Adjustment(ReadOnlySpan<double> p);
+
+    private static double[] OfDefined(ReadOnlySpan<double> p, Adjustment adjust)
     {
         var defined = new List<int>(p.Length);
         for (int i = 0; i < p.Length; i++) if (!double.IsNaN(p[i])) defined.Add(i);
@@ -53,10 +60,32 @@ public static class FalseDiscoveryRate
         Array.Fill(result, double.NaN);
         var values = new double[defined.Count];
         for (int k = 0; k < defined.Count; k++) values[k] = p[defined[k]];
-        var adjusted = BenjaminiHochberg(values);
+        var adjusted = adjust(values);
         for (int k = 0; k < defined.Count; k++) result[defined[k]] = adjusted[k];
         return result;
     }
+
+    /// <summary>
+    /// Benjamini-Yekutieli adjusted p-values, in the input order: adj_(i) = min over j ≥ i of min(1, c(m)·m·p_(j)/j) with
+    /// c(m) = Σ_{i=1..m} 1/i, i.e. min(1, c(m)·BH-adjusted p); adj_i ≤ q exactly when the step-up procedure at level
+    /// q/c(m) rejects H_i (Benjamini and Yekutieli 2001, Ann Stat 29:1165, theorem 1.3).
+    /// </summary>
+    /// <exception cref="ArgumentException">A p-value is NaN or outside [0, 1].</exception>
+    public static double[] BenjaminiYekutieli(ReadOnlySpan<double> p)
+    {
+        var adjusted = BenjaminiHochberg(p);
+        double c = 0;
+        for (int i = adjusted.Length; i >= 1; i--) c += 1.0 / i;
+        for (int i = 0; i < adjusted.Length; i++) adjusted[i] = Math.Min(1, c * adjusted[i]);
+        return adjusted;
+    }
+
+    /// <summary>
+    /// <see cref="BenjaminiYekutieli"/> over the defined p-values only: a NaN p stays NaN and is not counted in m (as in
+    /// <see cref="BenjaminiHochbergOfDefined"/>).
+    /// </summary>
+    /// <exception cref="ArgumentException">A p-value outside [0, 1].</exception>
+    public static double[] BenjaminiYekutieliOfDefined(ReadOnlySpan<double> p) => OfDefined(p, BenjaminiYekutieli);
 
     /// <summary>
     /// Which hypotheses the Benjamini-Hochberg step-up procedure rejects at false discovery rate

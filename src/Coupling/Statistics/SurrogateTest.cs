@@ -43,7 +43,13 @@ public static class SurrogateTest
     /// <exception cref="ArgumentException">No measures or a measure listed twice.</exception>
     public static IReadOnlyList<SurrogateResult> Run(NarrowbandSet set, IReadOnlyList<Measure> measures, int draws,
         ulong seed, string condition, int? maxThreads = null, IProgress<int>? progress = null,
-        CancellationToken cancellationToken = default)
+        CancellationToken cancellationToken = default) =>
+        RunObserved(set, measures, draws, seed, condition, maxThreads, progress, cancellationToken, null);
+
+    /// <summary>As the public <c>Run</c>, with <paramref name="observer"/> seeing every draw's values (cells measure-major, pairs in PairIndex order).</summary>
+    internal static IReadOnlyList<SurrogateResult> RunObserved(NarrowbandSet set, IReadOnlyList<Measure> measures, int draws,
+        ulong seed, string condition, int? maxThreads, IProgress<int>? progress, CancellationToken cancellationToken,
+        IDrawObserver? observer)
     {
         ArgumentNullException.ThrowIfNull(set);
         ArgumentNullException.ThrowIfNull(measures);
@@ -80,7 +86,7 @@ public static class SurrogateTest
                 PairwiseKernels.Compute(worker.Workspace, worker.Permutation, worker.Values);
                 return worker.Values;
             },
-            maxThreads, progress, cancellationToken);
+            maxThreads, progress, cancellationToken, observer);
 
         var results = new SurrogateResult[slots];
         for (int k = 0; k < slots; k++)

@@ -189,6 +189,8 @@ public sealed class BadInputCatalogueTests
         ["plan-recording-missing"] = c => c.Study(p => p.Replace("recording: rec.csv", "recording: rec2.csv")),
         ["plan-surrogates-negative"] = c => c.Study(p => p.Replace("surrogates: 200", "surrogates: -5")),
         ["plan-truncated-recording-choice"] = c => c.Study(p => p + "\ntruncated_recording: keep\n"),
+        ["plan-unusable-data-choice"] = c => c.Study(p => p + "\nunusable_data: drop\n"),
+        ["plan-unusable-data-leaves-one-channel"] = c => c.Study(p => p + "\nunusable_data: drop-channels\n", edit: (ch, s, v) => ch >= 1 && s == 10 ? double.NaN : v),
         // command-line options
         ["cli-unknown-command"] = _ => ["simulat"],
         ["cli-misspelt-option"] = c => ["run", c["plan.yaml"], "--thread", "2"],

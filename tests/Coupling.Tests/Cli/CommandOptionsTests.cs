@@ -40,7 +40,14 @@ public sealed class CommandOptionsTests : IDisposable
         Assert.Contains("Work units: 6 (2 condition(s) x 2 band(s), 1 contrast(s) x 2 band(s)), 40 surrogates each", lines);
         Assert.Contains("  contrast go-vs-stop / band beta", lines);
         // 4 channels give 6 pairs; a lone pair passes Benjamini-Hochberg at q = 0.05 only if 1/(M+1) <= 0.05/6, so M >= 119.
-        Assert.Contains(lines, l => l.StartsWith("Surrogates needed for a single discovery among 6 pairs at q = 0.05: at least 119; the plan has 40", StringComparison.Ordinal));
+        Assert.Contains(lines, l => l.StartsWith("Surrogates needed for a single discovery among 6 pairs at q = 0.05 (benjamini-hochberg): at least 119; the plan has 40", StringComparison.Ordinal));
+
+        // Values without a test: no surrogate count to check, and check says so.
+        (code, output, err) = Cli("check", plan, "--surrogates", "0");
+        Assert.True(code == 0, err);
+        Assert.Contains("the plan has 0 (values only, no test).", output);
+        snapshot.AssertAllStillThere();
+        Assert.Equal(entries, _folder.Entries());
     }
 
     [Fact]

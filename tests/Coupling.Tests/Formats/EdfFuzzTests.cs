@@ -11,7 +11,7 @@ namespace Coupling.Tests.Formats;
 /// </summary>
 public sealed class EdfFuzzTests : IDisposable
 {
-    private const int Cases = 3000;
+    private const int Cases = 2000;
     private const int Seed = 20_261_202;
 
     /// <summary>Allocation allowed per case: a few times the file plus fixed buffers (the 64 KiB file buffer, header

@@ -27,7 +27,8 @@ public class EdgeTableWriterTests
 
         Assert.Equal(6 + 15, written);
         Assert.Equal(EdgeTableWriter.Columns, rows[0]);
-        Assert.Equal(["condition", "band", "measure", "channel_a", "channel_b", "value", "z", "p", "p_corrected", "significant"], rows[0]);
+        Assert.Equal(["condition", "band", "measure", "channel_a", "channel_b", "value", "z", "p", "p_corrected", "significant",
+            "correction", "family_size", "p_source", "component", "ci_low", "ci_high", "value_matched", "unbiased_in_trials"], rows[0]);
         Assert.Equal(1 + written, rows.Count);
         int line = 1;
         foreach (var r in results)
@@ -53,8 +54,9 @@ public class EdgeTableWriterTests
         EdgeTableWriter.Write([SampleResults.FourChannels()], dir["e.tsv"]);
         string[] lines = File.ReadAllLines(dir["e.tsv"]);
         // Pair 4 is Cz-Oz, all NaN in the sample.
-        Assert.Equal("rest\talpha\tplv\tCz\tOz\tNA\tNA\tNA\tNA\tfalse", lines[1 + 4]);
-        Assert.Equal("rest\talpha\tplv\tPz\tFz\t-0.3\t-3.5\t0.002\t0.004\ttrue", lines[1 + 1]);
+        // A result with no correction details, intervals or matched values: those columns are NA too; plv is biased in N.
+        Assert.Equal("rest\talpha\tplv\tCz\tOz\tNA\tNA\tNA\tNA\tfalse\tNA\tNA\tNA\tNA\tNA\tNA\tNA\tfalse", lines[1 + 4]);
+        Assert.Equal("rest\talpha\tplv\tPz\tFz\t-0.3\t-3.5\t0.002\t0.004\ttrue\tNA\tNA\tNA\tNA\tNA\tNA\tNA\tfalse", lines[1 + 1]);
         Assert.DoesNotContain(File.ReadAllText(dir["e.tsv"]), ch => ch == ',' || ch == '\r');
     }
 
@@ -66,7 +68,7 @@ public class EdgeTableWriterTests
         EdgeTableWriter.Write([r], dir["q.tsv"]);
         var rows = TableParsing.Read(dir["q.tsv"], '\t');
         Assert.Equal(7, rows.Count);
-        Assert.All(rows.Skip(1), f => Assert.Equal(10, f.Length));
+        Assert.All(rows.Skip(1), f => Assert.Equal(EdgeTableWriter.Columns.Count, f.Length));
         Assert.Equal("go\tno \"go\"", rows[1][0]);
         Assert.Equal(["C\"z", "F\tz"], rows[1 + 3][3..5]);
     }

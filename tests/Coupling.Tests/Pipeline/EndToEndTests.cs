@@ -84,7 +84,7 @@ public sealed class EndToEndTests(ScenarioRun run)
     public void The_results_folder_holds_report_manifest_tables_graphs_and_figures()
     {
         Assert.Equal(Path.Combine(run.Paths.Folder, "results"), run.Outcome.OutputFolder);
-        foreach (var f in new[] { "report.md", "manifest.json", "edges.tsv", "nodes.tsv", "graphs.tsv" })
+        foreach (var f in new[] { "report.html", "manifest.json", "edges.tsv", "nodes.tsv", "graphs.tsv", "flags.tsv" })
             Assert.True(File.Exists(run.Output(f)), f);
         int tables = run.Plan.Conditions.Count * run.Plan.Bands.Count * run.Plan.Measures.Count;
         Assert.Equal(2 * 4 * 9, tables);
@@ -99,7 +99,8 @@ public sealed class EndToEndTests(ScenarioRun run)
             Assert.Equal(10, doc.Descendants(ns + "node").Count());
         }
         var pngs = Directory.GetFiles(run.Output("figures"), "*.png");
-        Assert.Equal(2 * tables, pngs.Length);
+        // A matrix and a network figure per table, the overview and the surrogate distribution of one edge.
+        Assert.Equal(2 * tables + 2, pngs.Length);
         foreach (var p in pngs)
         {
             var (w, h) = PngHeader.Read(p);
@@ -161,10 +162,10 @@ public sealed class EndToEndTests(ScenarioRun run)
     [Fact]
     public void The_report_opens_with_the_research_use_notice()
     {
-        string report = File.ReadAllText(run.Output("report.md"));
+        string report = File.ReadAllText(run.Output("report.html"));
         Assert.Contains("Research use only", report);
         Assert.Contains("not a medical device", report);
-        Assert.True(report.IndexOf("Research use only", StringComparison.Ordinal) < report.IndexOf("## Input", StringComparison.Ordinal));
+        Assert.True(report.IndexOf("Research use only", StringComparison.Ordinal) < report.IndexOf("id=\"input\"", StringComparison.Ordinal));
     }
 
     [Fact]
@@ -205,6 +206,6 @@ public sealed class EndToEndTests(ScenarioRun run)
         Assert.Equal(3 * 4 * 9, Directory.GetFiles(run.Output("matrices/contrasts"), "*.csv").Length);
         Assert.Equal(2 * 4 * 9, Directory.GetFiles(run.Output("figures/contrasts"), "*.png").Length);
         Assert.Equal(2 * 4 * 9, Directory.GetFiles(run.Output("figures/contrasts"), "*.svg").Length);
-        Assert.Contains("## Condition contrasts", File.ReadAllText(run.Output("report.md")));
+        Assert.Contains("<section id=\"contrasts\">", File.ReadAllText(run.Output("report.html")));
     }
 }

@@ -44,7 +44,8 @@ public sealed class InputAnswersTests : IDisposable
     {
         string plan = TwoConditions(surrogates: 0);
         var valuesOnly = AnalysisRunner.Run(PlanReader.Read(plan));
-        File.WriteAllText(plan, File.ReadAllText(plan).Replace("surrogates: 0", "surrogates: 20").Replace("output: results", "output: tested"));
+        File.WriteAllText(plan, File.ReadAllText(plan).Replace("surrogates: 0", "surrogates: 20").Replace("output: results", "output: tested")
+            .Replace("figures: true", "figures: false"));
         var tested = AnalysisRunner.Run(PlanReader.Read(plan));
 
         Assert.Equal(tested.Results.Count, valuesOnly.Results.Count);
@@ -76,7 +77,7 @@ public sealed class InputAnswersTests : IDisposable
         // Matrix figures show the values; there is no network of significant pairs to draw.
         Assert.NotEmpty(Directory.GetFiles(Path.Combine(folder, "figures"), "*_matrix.png"));
         Assert.Empty(Directory.GetFiles(Path.Combine(folder, "figures"), "*_network.png", SearchOption.AllDirectories));
-        Assert.Contains("not tested (surrogates: 0, values only)", File.ReadAllText(Path.Combine(folder, "report.md")));
+        Assert.Contains("not tested (surrogates: 0, values only)", System.Net.WebUtility.HtmlDecode(File.ReadAllText(Path.Combine(folder, "report.html"))));
     }
 
     [Fact]
@@ -149,7 +150,8 @@ public sealed class InputAnswersTests : IDisposable
         var bytes = File.ReadAllBytes(edf)[..(int)keep];
         File.WriteAllBytes(edf, bytes);
         string plan = Path.Combine(_folder["sim"], "plan.yaml");
-        File.WriteAllText(plan, File.ReadAllText(plan).Replace("surrogates: 1000", "surrogates: 0").Replace("figures: true", "figures: false"));
+        File.WriteAllText(plan, File.ReadAllText(plan).Replace("surrogates: 1000", "surrogates: 0").Replace("figures: true", "figures: false")
+            .Replace("measures: [plv, ppc, pli, wpli, wpli-debiased, coherence, imag-coherency, aec, aec-orth]", "measures: [plv]"));
         var (code, _, err) = Cli("run", plan);
         Assert.Equal(2, code);
         Assert.Contains("truncated_recording: keep-complete-records", err);
@@ -157,7 +159,7 @@ public sealed class InputAnswersTests : IDisposable
         File.AppendAllText(plan, "truncated_recording: keep-complete-records\n");
         var outcome = AnalysisRunner.Run(PlanReader.Read(plan));
         string expected = $"Truncated file: {header.RecordCount - 3} of the {header.RecordCount} data records the header promises are complete and were kept";
-        Assert.Contains(expected, File.ReadAllText(Path.Combine(outcome.OutputFolder, "report.md")));
+        Assert.Contains(expected, System.Net.WebUtility.HtmlDecode(File.ReadAllText(Path.Combine(outcome.OutputFolder, "report.html"))));
         Assert.Contains(expected, File.ReadAllText(Path.Combine(outcome.OutputFolder, "manifest.json")));
     }
 

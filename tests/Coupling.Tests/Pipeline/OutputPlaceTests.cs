@@ -80,6 +80,22 @@ public sealed class OutputPlaceTests : IDisposable
     }
 
     [Fact]
+    public void A_folder_holding_only_the_plan_or_only_the_events_file_is_refused()
+    {
+        Directory.CreateDirectory(_folder["data"]);
+        Directory.CreateDirectory(_folder["plans"]);
+        Directory.CreateDirectory(_folder["events"]);
+        SmallStudy.WriteRecording(_folder["data"]);
+        File.Move(_folder["data/rec_events.tsv"], _folder["events/go.tsv"]);
+        string plan = _folder["plans/plan.yaml"];
+        string text = SmallStudy.PlanText(20).Replace("recording: rec.csv", "recording: ../data/rec.csv").Replace("events: rec_events.tsv", "events: ../events/go.tsv");
+        File.WriteAllText(plan, text.Replace("output: results", "output: ."));
+        Refused(plan, _folder["plans"], ["--force"], "holds the input", "plan.yaml");
+        File.WriteAllText(plan, text.Replace("output: results", "output: ../events"));
+        Refused(plan, _folder["events"], ["--force"], "holds the input", "go.tsv");
+    }
+
+    [Fact]
     public void A_link_to_the_recording_folder_is_recognised_as_that_folder()
     {
         string plan = Study(_folder["data"], "../link");
@@ -135,6 +151,21 @@ public sealed class OutputPlaceTests : IDisposable
         (code, _, err) = Cli("run", plan);
         Assert.True(code == 0, err);
         Assert.Equal(["plan.yaml", "rec.csv", "rec_events.tsv", "results"], _folder.Entries());
+    }
+
+    [Fact]
+    public void Earlier_results_left_aside_by_a_killed_run_are_put_back_before_anything_is_computed()
+    {
+        string plan = Study(_folder.Path, "results");
+        Assert.Equal(0, Cli("run", plan).Code);
+        // A run killed between setting the earlier results aside and renaming its own into place.
+        Directory.Move(_folder["results"], _folder[".results.old-0123456789ab"]);
+        var stages = new List<string>();
+        var e = Assert.Throws<InputException>(() => AnalysisRunner.Run(PlanReader.Read(plan), new SynchronousProgress(stages)));
+        Assert.Contains("give --force", e.Message);
+        Assert.Empty(stages);
+        Assert.Equal(["plan.yaml", "rec.csv", "rec_events.tsv", "results"], _folder.Entries());
+        Assert.True(File.Exists(_folder["results/manifest.json"]));
     }
 
     [Fact]

@@ -27,7 +27,7 @@ public sealed class SurrogateCountWarningTests
         Assert.Contains("smallest attainable p is 1/11", warning);
         Assert.Contains("no pair can pass the correction", warning);
         Assert.Contains("at least 119 surrogates", warning);
-        Assert.Contains("smallest attainable p is 1/11", File.ReadAllText(Path.Combine(outcome.OutputFolder, "report.md")));
+        Assert.Contains("smallest attainable p is 1/11", File.ReadAllText(Path.Combine(outcome.OutputFolder, "report.html")));
         Assert.All(outcome.Results, r => Assert.DoesNotContain(true, r.Significant));
     }
 

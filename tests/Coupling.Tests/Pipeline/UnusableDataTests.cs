@@ -33,9 +33,9 @@ public sealed class UnusableDataTests : IDisposable
         Assert.NotEmpty(go.Dropped);
         Assert.All(go.Dropped, d => Assert.Contains("holds NaN or infinite samples (channel 'B' from 1.5 s)", d));
         Assert.Equal(20 - go.Dropped.Count, go.Trials);
-        string report = File.ReadAllText(Path.Combine(outcome.OutputFolder, "report.md"));
+        string report = System.Net.WebUtility.HtmlDecode(File.ReadAllText(Path.Combine(outcome.OutputFolder, "report.html")));
         string manifest = File.ReadAllText(Path.Combine(outcome.OutputFolder, "manifest.json"));
-        Assert.Contains("Dropped: go: event 'go' at 3 s: the trial (with its padding) holds NaN or infinite samples", report);
+        Assert.Contains("go: event 'go' at 3 s: the trial (with its padding) holds NaN or infinite samples", report);
         Assert.Contains("holds NaN or infinite samples", manifest);
 
         // The same trials from a recording without the NaN, the dropped events removed by hand: the same values.
@@ -52,7 +52,7 @@ public sealed class UnusableDataTests : IDisposable
         Assert.All(outcome.Results, r => Assert.Equal(["A", "C", "D"], r.Channels));
         Assert.Equal(20, Assert.Single(outcome.Conditions).Trials);
         string note = "Channel 'B' left out (unusable_data: drop-channels): 1 NaN or infinite sample(s), the first at 1.5 s.";
-        Assert.Contains(note, File.ReadAllText(Path.Combine(outcome.OutputFolder, "report.md")));
+        Assert.Contains(note, System.Net.WebUtility.HtmlDecode(File.ReadAllText(Path.Combine(outcome.OutputFolder, "report.html"))));
         Assert.Contains(note, File.ReadAllText(Path.Combine(outcome.OutputFolder, "manifest.json")));
     }
 
@@ -61,14 +61,14 @@ public sealed class UnusableDataTests : IDisposable
     {
         var outcome = Run(UnusableData.DropTrials, (c, s, v) => c == 2 ? 5.0 : v);
         Assert.All(outcome.Results, r => Assert.Equal(["A", "B", "D"], r.Channels));
-        Assert.Contains("Channel 'C' left out (unusable_data: drop-trials): flat (every sample equal).", File.ReadAllText(Path.Combine(outcome.OutputFolder, "report.md")));
+        Assert.Contains("Channel 'C' left out (unusable_data: drop-trials): flat (every sample equal).", System.Net.WebUtility.HtmlDecode(File.ReadAllText(Path.Combine(outcome.OutputFolder, "report.html"))));
     }
 
     [Fact]
     public void Too_few_channels_left_is_refused_naming_the_key()
     {
         var e = Assert.Throws<InputException>(() => Run(UnusableData.DropChannels, (c, s, v) => c >= 1 && s == 10 ? double.NaN : v));
-        Assert.Contains("plan.yaml, line 15: unusable_data: connectivity needs at least 2 channels, but only 1 remain", e.Message);
+        Assert.Contains("plan.yaml, line 15: unusable_data: connectivity needs at least 2 channels, but 1 remains", e.Message);
     }
 
     [Fact]

@@ -79,7 +79,7 @@ public sealed class PlanReaderTests
             "measures: [plv, wpli, aec-orth]",
             "surrogates: 250",
             "seed: 18446744073709551615",
-            "correction: { method: fdr-bh, q: 0.01 }",
+            "correction: { method: benjamini-hochberg, q: 0.01 }",
             "output: ../out/run1",
             "figures: false",
             "threads: 2",
@@ -236,7 +236,7 @@ public sealed class PlanReaderTests
     [InlineData("1.5")]
     [InlineData("-0.05")]
     public void A_false_discovery_rate_level_outside_zero_to_one_is_refused(string q) =>
-        AssertRefused(Plus($"correction: {{ method: fdr-bh, q: {q} }}"), 12, "correction.q:", "expected a level between 0 and 1");
+        AssertRefused(Plus($"correction: {{ method: benjamini-hochberg, q: {q} }}"), 12, "correction.q:", "expected a level between 0 and 1");
 
     [Fact]
     public void Contrasts_are_read_as_pairs_of_conditions_in_the_order_given()
