@@ -114,28 +114,51 @@ public static class AnalysisRunner
         var directions = plan.Direction ? new List<PairDirection>() : null;
         var summaries = new List<ConditionSummary>();
         var signals = new List<BandSignalSummary>();
+        // A condition with a unit kept by an interrupted run is isolated band by band, so kept bands are not isolated again.
+        var kept = units?.KeptUnits(plan) ?? [];
         for (int ci = 0; ci < plan.Conditions.Count; ci++)
         {
-            var trials = input.Trials(plan.Conditions[ci], plan.Trial, pad);
+            TrialSet? trials = input.Trials(plan.Conditions[ci], plan.Trial, pad);
             var removedMean = plan.SubtractEvoked ? EvokedRemoval.Mean(trials) : null;
             if (plan.SubtractEvoked) EvokedRemoval.SubtractInPlace(trials);
             summaries.Add(new ConditionSummary(trials.Condition, trials.TrialCount, trials.DroppedTrials));
+            string conditionName = trials.Condition;
+            var channels = trials.Channels;
+            // Memory: when every band's narrowband set together is smaller than the padded trials, isolate them all
+            // first and let the trials go before the surrogate tests (BandOrder); the direction step needs the trials.
             for (int bi = 0; bi < decompositions.Length; bi++)
             {
-                string stage = $"{trials.Condition} / {plan.Bands[bi].Name}";
-                NarrowbandSet? extracted = null;
+                var decomposition = decompositions[bi];
+                var cut = trials;
+                InPlan(plan, "window", () => { EdgeReach.Check(cut, decomposition, plan.Window); return 0; });
+            }
+            var sets = new NarrowbandSet?[decompositions.Length];
+            bool resuming = plan.Bands.Any(b => kept.Contains(UnfinishedRun.ConditionUnit(conditionName, b.Name)));
+            if (!resuming && directions is null && BandOrder.IsolateAllFirst(trials, plan.Window, steps))
+            {
+                for (int bi = 0; bi < decompositions.Length; bi++)
+                {
+                    progress?.Report(new RunProgress($"{conditionName} / {plan.Bands[bi].Name}: band isolation", 0, 0));
+                    sets[bi] = NarrowbandExtractor.Extract(trials, decompositions[bi], plan.Window, steps[bi], workers);
+                }
+                trials = null;
+            }
+            for (int bi = 0; bi < decompositions.Length; bi++)
+            {
+                string stage = $"{conditionName} / {plan.Bands[bi].Name}";
+                NarrowbandSet? extracted = sets[bi];
+                sets[bi] = null;
                 NarrowbandSet Narrowband()
                 {
                     if (extracted is not null) return extracted;
                     progress?.Report(new RunProgress($"{stage}: band isolation", 0, 0));
-                    return extracted = NarrowbandExtractor.Extract(trials, decompositions[bi], plan.Window, steps[bi], workers);
+                    return extracted = NarrowbandExtractor.Extract(trials!, decompositions[bi], plan.Window, steps[bi], workers);
                 }
-                InPlan(plan, "window", () => { EdgeReach.Check(trials, decompositions[bi], plan.Window); return 0; });
                 // Computed even when a finished unit is taken from an interrupted run, so that the evoked-share warning is
                 // the same in a resumed run as in an uninterrupted one.
                 var removedBand = removedMean is null ? null
                     : NarrowbandExtractor.Extract(removedMean, decompositions[bi], plan.Window, steps[bi], workers);
-                if (EvokedShare.Warning(trials.Condition, plan.Bands[bi].Name, trials.Channels,
+                if (EvokedShare.Warning(conditionName, plan.Bands[bi].Name, channels,
                         EvokedShare.Compute(Narrowband(), removedBand)) is { } evokedWarning)
                 {
                     warnings.Add(evokedWarning);
@@ -144,28 +167,28 @@ public static class AnalysisRunner
                 var stageProgress = progress is null ? null
                     : new Progress<int>(done => progress.Report(new RunProgress($"{stage}: surrogates", done, plan.Surrogates)));
                 IReadOnlyList<SurrogateResult> Compute() => plan.Surrogates == 0 ? ValuesOnly.Compute(Narrowband(), plan.Measures)
-                    : SurrogateTest.Run(Narrowband(), plan.Measures, plan.Surrogates, Seeds.For(plan.Seed, ci, bi), trials.Condition,
+                    : SurrogateTest.Run(Narrowband(), plan.Measures, plan.Surrogates, Seeds.For(plan.Seed, ci, bi), conditionName,
                         workers > 0 ? workers : null, stageProgress, cancellationToken);
                 var tested = draws
                     ? FamilyCorrection.TestCondition(Narrowband(), plan.Measures, plan.Surrogates, Seeds.For(plan.Seed, ci, bi),
-                        trials.Condition, plan.Correction, plan.Q, workers > 0 ? workers : null, stageProgress, cancellationToken)
-                    : (units?.Condition(ci, bi, UnfinishedRun.ConditionUnit(trials.Condition, plan.Bands[bi].Name), Compute) ?? Compute())
+                        conditionName, plan.Correction, plan.Q, workers > 0 ? workers : null, stageProgress, cancellationToken)
+                    : (units?.Condition(ci, bi, UnfinishedRun.ConditionUnit(conditionName, plan.Bands[bi].Name), Compute) ?? Compute())
                         .Select(t => (t, FamilyCorrection.FromPValues(pValueCorrection, plan.Q, t.P))).ToArray();
                 var (low, high) = plan.JackknifeIntervals ? TrialResampling.Jackknife(Narrowband(), plan.Measures) : (null, null);
                 var matched = plan.MatchTrials > 0
                     ? TrialResampling.Matched(Narrowband(), plan.Measures, trialCounts.Values.Min(), plan.MatchTrials, Seeds.ForMatching(plan.Seed, ci, bi))
                     : null;
-                signals.Add(SignalSummaries.Summarise(Narrowband(), trials.Condition));
+                signals.Add(SignalSummaries.Summarise(Narrowband(), conditionName));
                 double[]? Slice(double[]? all, int k) => all?.AsSpan(k * pairs, pairs).ToArray();
                 for (int k = 0; k < tested.Count; k++)
                 {
                     var (m, o) = tested[k];
-                    results.Add(new PairResult(trials.Condition, plan.Bands[bi].Name, MeasureCatalog.Key(m.Measure), trials.Channels,
+                    results.Add(new PairResult(conditionName, plan.Bands[bi].Name, MeasureCatalog.Key(m.Measure), channels,
                         m.Observed, m.Z, o.P, o.PCorrected, o.Significant, input.Channels.Select(c => c.Position).ToArray(), o,
                         Slice(low, k), Slice(high, k), Slice(matched, k)));
                 }
                 if (directions is not null)
-                    directions.AddRange(DirectionStep.Run(trials, Narrowband(), plan.Bands[bi], plan.Window,
+                    directions.AddRange(DirectionStep.Run(trials!, Narrowband(), plan.Bands[bi], plan.Window,
                     results.Skip(results.Count - tested.Count).ToArray(), plan.Surrogates, Seeds.ForDirection(plan.Seed, ci, bi)));
             }
         }
