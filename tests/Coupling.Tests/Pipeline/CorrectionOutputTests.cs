@@ -44,7 +44,7 @@ public sealed class CorrectionOutputTests
         Assert.Contains("plv", ab[4].Split(','));
         Assert.InRange(Math.Abs(double.Parse(ab[6], System.Globalization.CultureInfo.InvariantCulture)), 0, 10);
 
-        string report = File.ReadAllText(Path.Combine(outcome.OutputFolder, "report.md"));
+        string report = File.ReadAllText(Path.Combine(outcome.OutputFolder, "report.html"));
         Assert.Contains("family-wise error at alpha = 0.05 by the maximum over pairs", report);
         Assert.Contains("family: all channel pairs of one condition x band x measure", report);
         var manifest = JsonNode.Parse(File.ReadAllText(Path.Combine(outcome.OutputFolder, "manifest.json")))!;
@@ -62,9 +62,7 @@ public sealed class CorrectionOutputTests
         string plan = Path.Combine(folder.Path, "plan.yaml");
         File.WriteAllText(plan, SmallStudy.PlanText(surrogates: 19) + "\ncorrection: { method: network-based, alpha: 0.05, threshold: 3 }\n");
         var outcome = AnalysisRunner.Run(PlanReader.Read(plan));
-        string report = File.ReadAllText(Path.Combine(outcome.OutputFolder, "report.md"));
-        Assert.Contains("## Network components", report);
-        Assert.Contains("| go / alpha / plv | 1 |", report);
+        Assert.Contains("network-based statistic", File.ReadAllText(Path.Combine(outcome.OutputFolder, "report.html")));
         var rows = File.ReadAllLines(Path.Combine(outcome.OutputFolder, "edges.tsv")).Select(l => l.Split('\t')).ToArray();
         int component = rows[0].ToList().IndexOf("component");
         Assert.Equal("1", rows.Skip(1).First(r => r[2] == "plv")[component]);
