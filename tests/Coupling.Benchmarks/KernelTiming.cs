@@ -15,6 +15,8 @@ public static class KernelTiming
         ("phase (plv, ppc)", [Measure.Plv, Measure.Ppc], 8),
         ("cross (coherence, imag-coherency)", [Measure.Coherence, Measure.ImagCoherency], 8),
         ("lag (pli, wpli, wpli-debiased)", [Measure.Pli, Measure.Wpli, Measure.WpliDebiased], 0),
+        ("lag, wpli alone", [Measure.Wpli], 0),
+        ("lag, pli alone", [Measure.Pli], 0),
         // One multiply-add per pair, trial and time point.
         ("aec", [Measure.Aec], 2),
         ("aec-orth", [Measure.AecOrth], 0),

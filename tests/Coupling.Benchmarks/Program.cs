@@ -5,7 +5,13 @@ using Coupling.Benchmarks;
 // reference workload end to end; "kernels [...]" times each kernel group; "precision PLAN [--draws N]" compares
 // single-precision storage with double; "figures [--channels N] [--repeats N]" times figure drawing and writing;
 // "corrections [--channels N] [--trials N] [--times N] [--draws N] [--threads N]" times the surrogate stage under each
-// correction; anything else goes to BenchmarkDotNet.
+// correction; "stages PLAN [--threads N]" times each stage of a plan's analysis; anything else goes to BenchmarkDotNet.
+if (args.Length > 1 && args[0] == "stages")
+{
+    int i = Array.IndexOf(args, "--threads");
+    PlanStages.Run(args[1], i > 0 ? int.Parse(args[i + 1], System.Globalization.CultureInfo.InvariantCulture) : 0, Console.Out);
+    return 0;
+}
 if (args.Length > 1 && args[0] == "precision")
 {
     int i = Array.IndexOf(args, "--draws");

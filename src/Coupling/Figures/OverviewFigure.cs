@@ -27,7 +27,10 @@ public static class OverviewFigure
 
     /// <summary>Draws the overview of <paramref name="results"/> and returns it as PNG bytes.</summary>
     /// <exception cref="ArgumentException">No results, or a result with fewer than two channels.</exception>
-    public static byte[] Render(IReadOnlyList<PairResult> results)
+    public static byte[] Render(IReadOnlyList<PairResult> results) => Render(results, svg: false);
+
+    /// <summary>Draws the overview of <paramref name="results"/> as PNG bytes, or as SVG text bytes when <paramref name="svg"/> is true.</summary>
+    public static byte[] Render(IReadOnlyList<PairResult> results, bool svg)
     {
         ArgumentNullException.ThrowIfNull(results);
         if (results.Count == 0) throw new ArgumentException("No results to draw.", nameof(results));
@@ -51,8 +54,9 @@ public static class OverviewFigure
         }, StringComparer.Ordinal);
 
         var info = new SKImageInfo(width, height, SKColorType.Rgba8888, SKAlphaType.Premul);
-        using var surface = SKSurface.Create(info);
-        var canvas = surface.Canvas;
+        using var svgStream = new MemoryStream();
+        using var surface = svg ? null : SKSurface.Create(info);
+        var canvas = svg ? SKSvgCanvas.Create(new SKRect(0, 0, width, height), svgStream) : surface!.Canvas;
         canvas.Clear(SKColors.White);
         using var typeface = SKTypeface.FromFamilyName("DejaVu Sans") ?? SKTypeface.Default;
         using var titleFont = new SKFont(typeface, 17);
@@ -97,13 +101,19 @@ public static class OverviewFigure
         for (int j = 0; j < columns.Length; j++)
             DrawScale(canvas, scales[columns[j]], LabelWidth + j * (panel + Gap), barTop, panel, fill, frame, smallFont, ink);
 
-        using var image = surface.Snapshot();
+        if (svg)
+        {
+            canvas.Dispose(); // ends the SVG document
+            return svgStream.ToArray();
+        }
+        using var image = surface!.Snapshot();
         using var data = image.Encode(SKEncodedImageFormat.Png, 100);
         return data.ToArray();
     }
 
-    /// <summary>Draws the overview of <paramref name="results"/> to <paramref name="path"/> as a PNG (atomically).</summary>
-    public static void Save(IReadOnlyList<PairResult> results, string path) => AtomicFile.WriteAllBytes(path, Render(results));
+    /// <summary>Draws the overview of <paramref name="results"/> to <paramref name="path"/>, as SVG for a .svg name, else PNG (atomically).</summary>
+    public static void Save(IReadOnlyList<PairResult> results, string path) =>
+        AtomicFile.WriteAllBytes(path, Render(results, Path.GetExtension(path).Equals(".svg", StringComparison.OrdinalIgnoreCase)));
 
     private static void DrawPanel(SKCanvas canvas, PairResult r, (bool Signed, double Top) scale, float left, float top, int panel,
         SKPaint fill, SKPaint frame)

@@ -17,7 +17,7 @@ public static class SurrogateFigure
     /// <summary>Observed-value line colour: a dark orange that stays distinct from the grey bars in greyscale too (darker).</summary>
     private static readonly Color Observed = Color.FromHex("#b34700");
 
-    /// <summary>Writes the figure of <paramref name="distribution"/> to <paramref name="path"/> as a PNG (atomically).</summary>
+    /// <summary>Writes the figure of <paramref name="distribution"/> to <paramref name="path"/> as a PNG, and beside it as SVG (atomically).</summary>
     public static void Save(SurrogateDistribution distribution, string path, int width = 900, int height = 500)
     {
         ArgumentNullException.ThrowIfNull(distribution);
@@ -77,6 +77,6 @@ public static class SurrogateFigure
             $"{distribution.Condition} · {distribution.Band} · {distribution.Measure} · {distribution.ChannelA}–{distribution.ChannelB}\n" +
             $"{distribution.Draws.Length} trial-shuffle surrogates; p = {distribution.P:G3}, z = {distribution.Z:0.##}");
         plot.Title(title, FigureStyle.TitleSize(width));
-        FigureStyle.Save(plot, [path], width, height);
+        FigureStyle.Save(plot, [path, Path.ChangeExtension(path, ".svg")], width, height);
     }
 }

@@ -8,7 +8,9 @@ namespace Coupling.Measures;
 /// Keys are short lowercase forms of the measures' published names:
 /// <c>plv, ppc, pli, wpli, wpli-debiased, coherence, imag-coherency, aec, aec-orth</c>.
 /// Test tails: for imaginary coherency, AEC and AEC-orth, whose sign carries the direction of the coupling (lead or lag,
-/// correlation or anticorrelation), the test statistic is |value| and the test is two-sided. For every other measure
+/// correlation or anticorrelation), the test is two-sided against the surrogate null itself (twice the smaller one-sided
+/// p-value), not on |value|: a stimulus-locked response with a lag between channels, or a shared envelope, moves that
+/// null away from 0. For every other measure
 /// larger means more coupling and the test is one-sided on the value itself; this includes PPC and debiased wPLI²,
 /// which are unbiased estimators and so can come out below zero under no coupling, where a negative value is
 /// evidence of nothing.
@@ -87,11 +89,4 @@ public static class MeasureCatalog
             => TestTail.Upper,
         _ => throw new ArgumentOutOfRangeException(nameof(measure), measure, "Unknown measure."),
     };
-
-    /// <summary>
-    /// The surrogate test statistic of a value of <paramref name="measure"/>: |value| for a two-sided measure, the
-    /// value itself otherwise. NaN stays NaN.
-    /// </summary>
-    public static double TestStatistic(Measure measure, double value) =>
-        TailOf(measure) == TestTail.TwoSided ? Math.Abs(value) : value;
 }

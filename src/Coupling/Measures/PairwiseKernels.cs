@@ -20,7 +20,8 @@ namespace Coupling.Measures;
 /// of cos of the phase-difference differences over all pairs of trials); NaN when N &lt; 2. Vinck, van Wingerden,
 /// Womelsdorf, Fries, Pennartz (2010), NeuroImage 51:112-122.</item>
 /// <item><b>PLI</b>(t) = |(1/N) Σ_n sign(Im X_n)|, sign(0) = 0. Stam, Nolte, Daffertshofer (2007), Hum Brain Mapp
-/// 28:1178-1193.</item>
+/// 28:1178-1193. Its window mean is computed as the exact whole number Σ_t |Σ_n sign(Im X_n)| over N·T (one division),
+/// so equal sign counts give equal values and surrogate ties are decided exactly.</item>
 /// <item><b>wPLI</b>(t) = |Σ_n Im X_n| / Σ_n |Im X_n|, and 0 when the denominator is 0. Vinck, Oostenveld,
 /// van Wingerden, Battaglia, Pennartz (2011), NeuroImage 55:1548-1565.</item>
 /// <item><b>debiased wPLI²</b>(t) = ((Σ_n Im X_n)² − Σ_n (Im X_n)²) / ((Σ_n |Im X_n|)² − Σ_n (Im X_n)²), and 0 when
@@ -127,17 +128,22 @@ public static class PairwiseKernels
     private static void Extract(PairwiseWorkspace w, Span<double> values, Func<double, double, double> finish, double scale, bool envelope)
     {
         int channels = w.Set.ChannelCount, pairs = w.PairCount, stride = w.Tables.Stride;
+        // The PLI sums hold Σ_t |Σ_n sign(Im X_n)|, a whole number below 2^53 and so exact in a double: the value is
+        // that count over N·T, one correctly rounded division, so equal counts give equal values (exact ties).
+        double signCounts = (double)w.Set.TrialCount * w.Set.TimeCount;
         for (int k = 0; k < w.Measures.Count; k++)
         {
             bool isEnvelope = w.Measures[k] is Measure.Aec or Measure.AecOrth;
             if (isEnvelope != envelope) continue;
+            bool counts = w.Measures[k] == Measure.Pli;
             var dense = w.Dense[k]!;
             var slice = values.Slice(k * pairs, pairs);
             int pair = 0;
             for (int a = 0; a < channels - 1; a++)
             {
                 var row = dense.Slice((long)a * stride, stride);
-                for (int b = a + 1; b < channels; b++, pair++) slice[pair] = finish(row[b], scale);
+                for (int b = a + 1; b < channels; b++, pair++)
+                    slice[pair] = counts ? row[b] / signCounts : finish(row[b], scale);
             }
         }
     }
@@ -212,17 +218,27 @@ public static class PairwiseKernels
 
     private static void AddLag(PairwiseWorkspace w, ref double re, ref double im, long timeBase, ReadOnlySpan<int> permutation)
     {
+        bool signs = w.DenseOf(Measure.Pli) is not null, squares = w.DenseOf(Measure.WpliDebiased) is not null;
+        bool sum = squares || w.DenseOf(Measure.Wpli) is not null;
+        if (squares) { if (signs) AddLag<LagAll>(w, ref re, ref im, timeBase, permutation); else AddLag<LagSumSquares>(w, ref re, ref im, timeBase, permutation); }
+        else if (sum) { if (signs) AddLag<LagSumSigns>(w, ref re, ref im, timeBase, permutation); else AddLag<LagSum>(w, ref re, ref im, timeBase, permutation); }
+        else AddLag<LagSigns>(w, ref re, ref im, timeBase, permutation);
+    }
+
+    /// <summary>The lag measures of one time point, with the tile forming only the sums they need.</summary>
+    private static void AddLag<TSums>(PairwiseWorkspace w, ref double re, ref double im, long timeBase, ReadOnlySpan<int> permutation)
+        where TSums : struct, ILagSums
+    {
         var tables = w.Tables;
         int channels = tables.Channels, stride = tables.Stride;
         var pli = w.DenseOf(Measure.Pli);
         var wpli = w.DenseOf(Measure.Wpli);
         var debiased = w.DenseOf(Measure.WpliDebiased);
-        var inverseCount = Vector256.Create(1.0 / tables.Trials);
         Vectors16 sums = default;
         for (int b0 = 0; b0 < channels; b0 += TileKernels.LagColumns)
             for (int a0 = 0; a0 < Math.Min(b0 + TileKernels.LagColumns, channels) - 1; a0 += TileKernels.LagRows)
             {
-                TileKernels.LagTile(ref re, ref im, timeBase, stride, permutation, a0, b0, ref sums);
+                TileKernels.LagTile<TSums>(ref re, ref im, timeBase, stride, permutation, a0, b0, ref sums);
                 for (int i = 0; i < 4; i++)
                 {
                     int r = i / 2, v = i % 2;
@@ -233,9 +249,11 @@ public static class PairwiseKernels
                     nuint offset = (nuint)((a0 + r) * stride + b0 + 4 * v);
                     // A NaN term makes the absolute sum NaN; then every lag measure is NaN. Where the absolute sum is 0
                     // (no nonzero imaginary part) wPLI is 0, which is the absolute sum itself.
+                    // PLI: the whole-number sign count |Σ_n sign(Im X_n)| of this time point is added as it is, so
+                    // the sum over time points stays an exact integer (no 1/N rounding that depends on the order).
                     if (pli is not null)
                         AddTo(pli, offset, Vector256.ConditionalSelect(Vector256.Equals(absolute, absolute),
-                            Vector256.Abs(sign) * inverseCount, absolute));
+                            Vector256.Abs(sign), absolute));
                     if (wpli is not null)
                         AddTo(wpli, offset, Vector256.ConditionalSelect(Vector256.GreaterThan(absolute, Vector256<double>.Zero),
                             Vector256.Abs(sum) / absolute, absolute));

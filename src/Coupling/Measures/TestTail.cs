@@ -5,6 +5,9 @@ public enum TestTail
 {
     /// <summary>One-sided: the test statistic is the value itself; larger means more coupling.</summary>
     Upper,
-    /// <summary>Two-sided: the test statistic is the absolute value; either sign counts as coupling.</summary>
+    /// <summary>
+    /// Two-sided against the null distribution itself: a value far below the null counts as much as one far above it,
+    /// wherever the null is centred (see Statistics.PermutationP).
+    /// </summary>
     TwoSided,
 }

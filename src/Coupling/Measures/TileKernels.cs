@@ -13,7 +13,7 @@ namespace Coupling.Measures;
 /// real number. <see cref="ComplexTile"/> therefore accumulates Σ Im x·Re y and Σ Re x·Im y in two separate sums, in
 /// the same order with the same fused operations, so that both come out bitwise equal and Im S = their difference is
 /// exactly 0 (a single fused accumulator would keep the rounding error of one product). The per-trial imaginary part
-/// in <see cref="LagTile"/> and <see cref="OrthogonalTile"/> is formed from two rounded products and one subtraction,
+/// in <see cref="LagTile{TSums}"/> and <see cref="OrthogonalTile"/> is formed from two rounded products and one subtraction,
 /// never fused, for the same reason; the JIT does not contract a multiplication and an addition into a fused one.
 /// </remarks>
 internal static class TileKernels
@@ -102,11 +102,13 @@ internal static class TileKernels
     /// <summary>
     /// One 2 x 8 tile of the lag sums at one time point, with Im X_n = Im x_a,n · Re y_b,π(n) − Re x_a,n · Im y_b,π(n)
     /// formed from two separately rounded products: Σ Im X_n into <paramref name="sums"/>[0..3], Σ |Im X_n| into
-    /// [4..7], Σ (Im X_n)² into [8..11] and Σ sign(Im X_n) into [12..15] (row-major, two vectors per row).
+    /// [4..7], Σ (Im X_n)² into [8..11] and Σ sign(Im X_n) into [12..15] (row-major, two vectors per row). Only the sums
+    /// <typeparamref name="TSums"/> asks for are formed (the others are left 0); Σ |Im X_n| always is (it carries NaN).
     /// </summary>
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
-    public static void LagTile(ref double re, ref double im, long timeBase, int stride, ReadOnlySpan<int> permutation,
+    public static void LagTile<TSums>(ref double re, ref double im, long timeBase, int stride, ReadOnlySpan<int> permutation,
         int a0, int b0, ref Vectors16 sums)
+        where TSums : struct, ILagSums
     {
         Vector256<double> s00 = default, a00 = default, q00 = default;
         Vector256<long> c00 = default;
@@ -127,27 +129,27 @@ internal static class TileKernels
             var xr0 = Vector256.Create(Unsafe.Add(ref re, x + 0));
             var xi0 = Vector256.Create(Unsafe.Add(ref im, x + 0));
             var d00 = xi0 * yr0 - xr0 * yi0;
-            s00 += d00;
+            if (TSums.Sum) s00 += d00;
             a00 += Vector256.Abs(d00);
-            q00 = Vector256.FusedMultiplyAdd(d00, d00, q00);
-            c00 = c00 - Vector256.GreaterThan(d00, Vector256<double>.Zero).AsInt64() + Vector256.LessThan(d00, Vector256<double>.Zero).AsInt64();
+            if (TSums.Squares) q00 = Vector256.FusedMultiplyAdd(d00, d00, q00);
+            if (TSums.Signs) c00 = c00 - Vector256.GreaterThan(d00, Vector256<double>.Zero).AsInt64() + Vector256.LessThan(d00, Vector256<double>.Zero).AsInt64();
             var d01 = xi0 * yr1 - xr0 * yi1;
-            s01 += d01;
+            if (TSums.Sum) s01 += d01;
             a01 += Vector256.Abs(d01);
-            q01 = Vector256.FusedMultiplyAdd(d01, d01, q01);
-            c01 = c01 - Vector256.GreaterThan(d01, Vector256<double>.Zero).AsInt64() + Vector256.LessThan(d01, Vector256<double>.Zero).AsInt64();
+            if (TSums.Squares) q01 = Vector256.FusedMultiplyAdd(d01, d01, q01);
+            if (TSums.Signs) c01 = c01 - Vector256.GreaterThan(d01, Vector256<double>.Zero).AsInt64() + Vector256.LessThan(d01, Vector256<double>.Zero).AsInt64();
             var xr1 = Vector256.Create(Unsafe.Add(ref re, x + 1));
             var xi1 = Vector256.Create(Unsafe.Add(ref im, x + 1));
             var d10 = xi1 * yr0 - xr1 * yi0;
-            s10 += d10;
+            if (TSums.Sum) s10 += d10;
             a10 += Vector256.Abs(d10);
-            q10 = Vector256.FusedMultiplyAdd(d10, d10, q10);
-            c10 = c10 - Vector256.GreaterThan(d10, Vector256<double>.Zero).AsInt64() + Vector256.LessThan(d10, Vector256<double>.Zero).AsInt64();
+            if (TSums.Squares) q10 = Vector256.FusedMultiplyAdd(d10, d10, q10);
+            if (TSums.Signs) c10 = c10 - Vector256.GreaterThan(d10, Vector256<double>.Zero).AsInt64() + Vector256.LessThan(d10, Vector256<double>.Zero).AsInt64();
             var d11 = xi1 * yr1 - xr1 * yi1;
-            s11 += d11;
+            if (TSums.Sum) s11 += d11;
             a11 += Vector256.Abs(d11);
-            q11 = Vector256.FusedMultiplyAdd(d11, d11, q11);
-            c11 = c11 - Vector256.GreaterThan(d11, Vector256<double>.Zero).AsInt64() + Vector256.LessThan(d11, Vector256<double>.Zero).AsInt64();
+            if (TSums.Squares) q11 = Vector256.FusedMultiplyAdd(d11, d11, q11);
+            if (TSums.Signs) c11 = c11 - Vector256.GreaterThan(d11, Vector256<double>.Zero).AsInt64() + Vector256.LessThan(d11, Vector256<double>.Zero).AsInt64();
         }
         sums[0] = s00; sums[4] = a00; sums[8] = q00; sums[12] = Vector256.ConvertToDouble(c00);
         sums[1] = s01; sums[5] = a01; sums[9] = q01; sums[13] = Vector256.ConvertToDouble(c01);
@@ -269,6 +271,59 @@ internal static class TileKernels
         sums[12] = sy2; sums[13] = syy2; sums[14] = syu2; sums[15] = sx2; sums[16] = sxx2; sums[17] = sxu2;
         sums[18] = sy3; sums[19] = syy3; sums[20] = syu3; sums[21] = sx3; sums[22] = sxx3; sums[23] = sxu3;
     }
+}
+
+/// <summary>Which of the optional lag sums a <see cref="TileKernels.LagTile{TSums}"/> forms; the JIT compiles one loop per choice.</summary>
+internal interface ILagSums
+{
+    /// <summary>Σ Im X_n (wPLI and debiased wPLI²).</summary>
+    static abstract bool Sum { get; }
+
+    /// <summary>Σ (Im X_n)² (debiased wPLI²).</summary>
+    static abstract bool Squares { get; }
+
+    /// <summary>Σ sign(Im X_n) (PLI).</summary>
+    static abstract bool Signs { get; }
+}
+
+/// <summary>PLI only.</summary>
+internal struct LagSigns : ILagSums
+{
+    public static bool Sum => false;
+    public static bool Squares => false;
+    public static bool Signs => true;
+}
+
+/// <summary>wPLI without PLI.</summary>
+internal struct LagSum : ILagSums
+{
+    public static bool Sum => true;
+    public static bool Squares => false;
+    public static bool Signs => false;
+}
+
+/// <summary>wPLI and PLI.</summary>
+internal struct LagSumSigns : ILagSums
+{
+    public static bool Sum => true;
+    public static bool Squares => false;
+    public static bool Signs => true;
+}
+
+/// <summary>Debiased wPLI² (with or without wPLI), without PLI.</summary>
+internal struct LagSumSquares : ILagSums
+{
+    public static bool Sum => true;
+    public static bool Squares => true;
+    public static bool Signs => false;
+}
+
+/// <summary>Every lag sum.</summary>
+internal struct LagAll : ILagSums
+{
+    public static bool Sum => true;
+    public static bool Squares => true;
+    public static bool Signs => true;
 }
 
 /// <summary>Twenty-four vectors on the stack: the sums of one tile.</summary>

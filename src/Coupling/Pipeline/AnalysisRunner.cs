@@ -114,46 +114,81 @@ public static class AnalysisRunner
         var directions = plan.Direction ? new List<PairDirection>() : null;
         var summaries = new List<ConditionSummary>();
         var signals = new List<BandSignalSummary>();
+        // A condition with a unit kept by an interrupted run is isolated band by band, so kept bands are not isolated again.
+        var kept = units?.KeptUnits(plan) ?? [];
         for (int ci = 0; ci < plan.Conditions.Count; ci++)
         {
-            var trials = input.Trials(plan.Conditions[ci], plan.Trial, pad);
+            TrialSet? trials = input.Trials(plan.Conditions[ci], plan.Trial, pad);
+            var removedMean = plan.SubtractEvoked ? EvokedRemoval.Mean(trials) : null;
             if (plan.SubtractEvoked) EvokedRemoval.SubtractInPlace(trials);
             summaries.Add(new ConditionSummary(trials.Condition, trials.TrialCount, trials.DroppedTrials));
+            string conditionName = trials.Condition;
+            var channels = trials.Channels;
+            // Memory: when every band's narrowband set together is smaller than the padded trials, isolate them all
+            // first and let the trials go before the surrogate tests (BandOrder); the direction step needs the trials.
             for (int bi = 0; bi < decompositions.Length; bi++)
             {
-                string stage = $"{trials.Condition} / {plan.Bands[bi].Name}";
-                NarrowbandSet? extracted = null;
+                var decomposition = decompositions[bi];
+                var cut = trials;
+                InPlan(plan, "window", () => { EdgeReach.Check(cut, decomposition, plan.Window); return 0; });
+            }
+            var sets = new NarrowbandSet?[decompositions.Length];
+            bool resuming = plan.Bands.Any(b => kept.Contains(UnfinishedRun.ConditionUnit(conditionName, b.Name)));
+            if (!resuming && directions is null && BandOrder.IsolateAllFirst(trials, plan.Window, steps))
+            {
+                for (int bi = 0; bi < decompositions.Length; bi++)
+                {
+                    progress?.Report(new RunProgress($"{conditionName} / {plan.Bands[bi].Name}: band isolation", 0, 0));
+                    sets[bi] = NarrowbandExtractor.Extract(trials, decompositions[bi], plan.Window, steps[bi], workers);
+                }
+                trials = null;
+            }
+            for (int bi = 0; bi < decompositions.Length; bi++)
+            {
+                string stage = $"{conditionName} / {plan.Bands[bi].Name}";
+                NarrowbandSet? extracted = sets[bi];
+                sets[bi] = null;
                 NarrowbandSet Narrowband()
                 {
                     if (extracted is not null) return extracted;
                     progress?.Report(new RunProgress($"{stage}: band isolation", 0, 0));
-                    return extracted = NarrowbandExtractor.Extract(trials, decompositions[bi], plan.Window, steps[bi], workers);
+                    return extracted = NarrowbandExtractor.Extract(trials!, decompositions[bi], plan.Window, steps[bi], workers);
+                }
+                // Computed even when a finished unit is taken from an interrupted run, so that the evoked-share warning is
+                // the same in a resumed run as in an uninterrupted one.
+                var removedBand = removedMean is null ? null
+                    : NarrowbandExtractor.Extract(removedMean, decompositions[bi], plan.Window, steps[bi], workers);
+                if (EvokedShare.Warning(conditionName, plan.Bands[bi].Name, channels,
+                        EvokedShare.Compute(Narrowband(), removedBand)) is { } evokedWarning)
+                {
+                    warnings.Add(evokedWarning);
+                    onWarning?.Invoke(evokedWarning);
                 }
                 var stageProgress = progress is null ? null
                     : new Progress<int>(done => progress.Report(new RunProgress($"{stage}: surrogates", done, plan.Surrogates)));
                 IReadOnlyList<SurrogateResult> Compute() => plan.Surrogates == 0 ? ValuesOnly.Compute(Narrowband(), plan.Measures)
-                    : SurrogateTest.Run(Narrowband(), plan.Measures, plan.Surrogates, Seeds.For(plan.Seed, ci, bi), trials.Condition,
+                    : SurrogateTest.Run(Narrowband(), plan.Measures, plan.Surrogates, Seeds.For(plan.Seed, ci, bi), conditionName,
                         workers > 0 ? workers : null, stageProgress, cancellationToken);
                 var tested = draws
                     ? FamilyCorrection.TestCondition(Narrowband(), plan.Measures, plan.Surrogates, Seeds.For(plan.Seed, ci, bi),
-                        trials.Condition, plan.Correction, plan.Q, workers > 0 ? workers : null, stageProgress, cancellationToken)
-                    : (units?.Condition(ci, bi, UnfinishedRun.ConditionUnit(trials.Condition, plan.Bands[bi].Name), Compute) ?? Compute())
+                        conditionName, plan.Correction, plan.Q, workers > 0 ? workers : null, stageProgress, cancellationToken)
+                    : (units?.Condition(ci, bi, UnfinishedRun.ConditionUnit(conditionName, plan.Bands[bi].Name), Compute) ?? Compute())
                         .Select(t => (t, FamilyCorrection.FromPValues(pValueCorrection, plan.Q, t.P))).ToArray();
                 var (low, high) = plan.JackknifeIntervals ? TrialResampling.Jackknife(Narrowband(), plan.Measures) : (null, null);
                 var matched = plan.MatchTrials > 0
                     ? TrialResampling.Matched(Narrowband(), plan.Measures, trialCounts.Values.Min(), plan.MatchTrials, Seeds.ForMatching(plan.Seed, ci, bi))
                     : null;
-                signals.Add(SignalSummaries.Summarise(Narrowband(), trials.Condition));
+                signals.Add(SignalSummaries.Summarise(Narrowband(), conditionName));
                 double[]? Slice(double[]? all, int k) => all?.AsSpan(k * pairs, pairs).ToArray();
                 for (int k = 0; k < tested.Count; k++)
                 {
                     var (m, o) = tested[k];
-                    results.Add(new PairResult(trials.Condition, plan.Bands[bi].Name, MeasureCatalog.Key(m.Measure), trials.Channels,
+                    results.Add(new PairResult(conditionName, plan.Bands[bi].Name, MeasureCatalog.Key(m.Measure), channels,
                         m.Observed, m.Z, o.P, o.PCorrected, o.Significant, input.Channels.Select(c => c.Position).ToArray(), o,
                         Slice(low, k), Slice(high, k), Slice(matched, k)));
                 }
                 if (directions is not null)
-                    directions.AddRange(DirectionStep.Run(trials, Narrowband(), plan.Bands[bi], plan.Window,
+                    directions.AddRange(DirectionStep.Run(trials!, Narrowband(), plan.Bands[bi], plan.Window,
                     results.Skip(results.Count - tested.Count).ToArray(), plan.Surrogates, Seeds.ForDirection(plan.Seed, ci, bi)));
             }
         }
@@ -211,14 +246,14 @@ public static class AnalysisRunner
                     var (a, b) = Narrowband();
                     return plan.Surrogates == 0 ? ValuesOnly.Compare(a, b, plan.Measures)
                         : ConditionContrast.Run(a, b, plan.Measures, plan.Surrogates, Seeds.ForContrast(plan.Seed, ki, bi), contrast.Name,
-                            workers > 0 ? workers : null, stageProgress, cancellationToken);
+                            plan.SubtractEvoked, workers > 0 ? workers : null, stageProgress, cancellationToken);
                 }
                 IReadOnlyList<(ContrastResult, FamilyOutcome)> tested;
                 if (draws)
                 {
                     var (a, b) = Narrowband();
                     tested = FamilyCorrection.TestContrast(a, b, plan.Measures, plan.Surrogates, Seeds.ForContrast(plan.Seed, ki, bi),
-                        contrast.Name, plan.Correction, plan.Q, workers > 0 ? workers : null, stageProgress, cancellationToken);
+                        contrast.Name, plan.Correction, plan.Q, workers > 0 ? workers : null, stageProgress, cancellationToken, plan.SubtractEvoked);
                 }
                 else
                     tested = (units?.Contrast(ki, bi, UnfinishedRun.ContrastUnit(contrast.Name, plan.Bands[bi].Name), Compute) ?? Compute())
@@ -232,10 +267,15 @@ public static class AnalysisRunner
         return results;
     }
 
+    /// <summary>
+    /// The trials of a condition for a contrast: as recorded when the contrast is tested, because the test removes the
+    /// evoked response inside, from each group of every split (band isolation is linear, so removing it from the
+    /// narrowband signals is the same); with the condition's own mean removed here when only values are computed.
+    /// </summary>
     private static TrialSet Cut(Plan plan, LoadedInput input, string condition, int pad)
     {
         var trials = input.Trials(plan.Conditions.First(c => c.Name == condition), plan.Trial, pad);
-        if (plan.SubtractEvoked) EvokedRemoval.SubtractInPlace(trials);
+        if (plan.SubtractEvoked && plan.Surrogates == 0) EvokedRemoval.SubtractInPlace(trials);
         return trials;
     }
 

@@ -14,7 +14,7 @@ public static class BandWarnings
     /// <summary>
     /// One warning per band whose lowest frequency completes fewer than <see cref="MinimumCycles"/> cycles in the analysis
     /// window, and, for input cut into epochs, one per band whose filter (FIR taps or wavelet support) is longer than an
-    /// epoch (the trial plus the padding it holds): the band signal is then shaped mostly by the reflected padding.
+    /// epoch (the trial plus the padding it holds): the band signal is then shaped mostly by the padding past the epochs, which holds zeros.
     /// Continuous recordings have real data around every trial, so the second warning does not apply to them.
     /// </summary>
     /// <param name="plan">The plan (window, trial span, bands in order).</param>
@@ -38,7 +38,7 @@ public static class BandWarnings
             if (epochSamples is { } epoch && length > epoch)
                 warnings.Add(
                     $"Band '{band.Name}' ({F(band.Low)}-{F(band.High)} Hz): the filter is {length.ToString("0", inv)} samples ({(length / sampleRate).ToString("0.###", inv)} s) long, longer than the " +
-                    $"{epoch}-sample epochs (trial plus padding); the band signal inside each trial then depends mostly on the reflected padding. " +
+                    $"{epoch}-sample epochs (trial plus padding); the band signal inside each trial then depends mostly on the padding past the epochs, which holds zeros. " +
                     "Use longer epochs, a wider transition or a higher band.");
         }
         return warnings;

@@ -54,7 +54,7 @@ public static class ResultsWriter
             written.Add($"graphs/{stem}.graphml");
             if (plan.Figures)
             {
-                foreach (var (kind, save) in Figures(r, null))
+                foreach (var (kind, save) in Figures(r, null, plan.Surrogates > 0))
                 {
                     if (kind == "network" && plan.Surrogates == 0) continue; // values only: no significant pairs to draw a network of
                     string[] files = [$"figures/{stem}_{kind}.png", $"figures/{stem}_{kind}.svg"];
@@ -83,7 +83,7 @@ public static class ResultsWriter
                 {
                     string stem = OutputNames.Stem(difference);
                     string label = $"{difference.Measure} difference";
-                    foreach (var (kind, save) in Figures(difference, label))
+                    foreach (var (kind, save) in Figures(difference, label, plan.Surrogates > 0))
                     {
                         if (kind == "network" && plan.Surrogates == 0) continue;
                         string[] files = [$"figures/contrasts/{stem}_{kind}.png", $"figures/contrasts/{stem}_{kind}.svg"];
@@ -108,11 +108,14 @@ public static class ResultsWriter
         if (plan.Figures && analysis.Results.Count > 0)
         {
             OverviewFigure.Save(analysis.Results, folder.PathOf($"figures/{HtmlReport.OverviewFile}"));
+            OverviewFigure.Save(analysis.Results, folder.PathOf($"figures/{Path.ChangeExtension(HtmlReport.OverviewFile, ".svg")}"));
             written.Add($"figures/{HtmlReport.OverviewFile}");
+            written.Add($"figures/{Path.ChangeExtension(HtmlReport.OverviewFile, ".svg")}");
             if (analysis.SurrogateExample is { } example)
             {
                 SurrogateFigure.Save(example, folder.PathOf($"figures/{HtmlReport.SurrogateFile}"));
                 written.Add($"figures/{HtmlReport.SurrogateFile}");
+                written.Add($"figures/{Path.ChangeExtension(HtmlReport.SurrogateFile, ".svg")}");
             }
         }
         written.Add("report.html");
@@ -153,10 +156,9 @@ public static class ResultsWriter
         return folder.TargetPath;
     }
 
-    /// <summary>The figures of a result: name part and a writer taking the paths (PNG and SVG) to write.</summary>
-    private static (string Kind, Action<string[]> Save)[] Figures(PairResult r, string? label) =>
-    [
-        ("matrix", paths => MatrixFigure.Save(r, paths, valueLabel: label)),
-        ("network", paths => NetworkFigure.Save(r, paths, valueLabel: label)),
-    ];
+    /// <summary>The figures of a result: name part and a writer taking the paths (PNG and SVG) to write. Values without
+    /// a test (surrogates: 0) have no significant pairs to draw a network of, so they get the matrix only.</summary>
+    private static (string Kind, Action<string[]> Save)[] Figures(PairResult r, string? label, bool tested) => tested
+        ? [("matrix", paths => MatrixFigure.Save(r, paths, valueLabel: label)), ("network", paths => NetworkFigure.Save(r, paths, valueLabel: label))]
+        : [("matrix", paths => MatrixFigure.Save(r, paths, valueLabel: label))];
 }

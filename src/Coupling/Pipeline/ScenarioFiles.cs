@@ -14,8 +14,9 @@ public static class ScenarioFiles
     public const int DefaultSeed = 1;
 
     /// <summary>Surrogate draws in the written plan: enough that one true pair among the 45 of ten channels can pass
-    /// the Benjamini-Hochberg step at q = 0.05 (its smallest p, 1/(M+1), must be at most 0.05/45).</summary>
-    public const int DefaultSurrogates = 1000;
+    /// the Benjamini-Hochberg step at q = 0.05 in a two-sided test too (its smallest p, 2/(M+1), must be at most
+    /// 0.05/45, so M ≥ 1799).</summary>
+    public const int DefaultSurrogates = 2000;
 
     /// <summary>
     /// Simulates the scenario and writes, into <paramref name="folder"/>: <c>scenario.edf</c> (EDF+ with the events as

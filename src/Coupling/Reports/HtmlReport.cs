@@ -122,7 +122,8 @@ public static class HtmlReport
         sb.Append($"<dt>Evoked response</dt><dd>{(plan.SubtractEvoked ? "subtracted (each condition's trial mean, before band isolation)" : "kept")}</dd>");
         sb.Append(plan.Surrogates == 0
             ? "<dt>Significance</dt><dd>not tested (surrogates: 0, values only): p, z and corrected p are empty and no pair is significant</dd>"
-            : $"<dt>Significance</dt><dd>{plan.Surrogates} trial-shuffle surrogates (seed {plan.Seed}); {E(Pipeline.CorrectionText.Describe(plan.Correction, plan.Q))}; family: {Pipeline.CorrectionText.ConditionFamily}</dd>");
+            : $"<dt>Significance</dt><dd>{plan.Surrogates} trial-shuffle surrogates (seed {plan.Seed}); {E(Pipeline.CorrectionText.Describe(plan.Correction, plan.Q))}; " +
+              $"family: {E(Pipeline.CorrectionText.ConditionFamily)} ({E(Pipeline.CorrectionText.ContrastFamily)} for contrasts)</dd>");
         foreach (var note in c.InputNotes) sb.Append($"<dt>Note from reading</dt><dd>{E(note)}</dd>");
         sb.Append("</dl>\n<h3>Trials per condition</h3>\n");
         var rows = plan.Conditions.Zip(c.Analysis.Conditions).Select(p => (IReadOnlyList<string>)

@@ -43,6 +43,7 @@ public sealed class FirHilbertDecomposition : IBandDecomposition
             ["filter_length_s"] = filter.LengthSeconds,
             ["measured_ripple_db"] = filter.MeasuredRippleDb,
             ["measured_stopband_db"] = filter.MeasuredStopbandDb,
+            ["edge_reach_s"] = filter.DelaySamples / filter.SampleRate,
         });
     }
 

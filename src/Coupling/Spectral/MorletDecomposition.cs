@@ -4,7 +4,8 @@ namespace Coupling.Spectral;
 
 /// <summary>
 /// Band isolation by convolution with one complex Morlet wavelet (<see cref="MorletWavelet"/>) centred on the band:
-/// w[i] = sum_{k=-K..K} psi[k] x[i - k], same length as the input, x taken as 0 outside the segment.
+/// w[i] = sum_{k=-K..K} psi[k] y[i - k] with y = x - mean(x) the segment less its mean, same length as the input, y taken
+/// as 0 outside the segment.
 /// </summary>
 /// <remarks>
 /// Tallon-Baudry, C. et al. (1996), J. Neurosci. 16(13), 4240-4249; Bruns, A. (2004), J. Neurosci. Methods 137,
@@ -15,10 +16,14 @@ namespace Coupling.Spectral;
 /// the connectivity measures are normalised by the amplitudes (or use phase only), so this scale cancels.
 /// Applied by FFT (MathNet.Numerics Fourier) of power-of-two length at least n + 2K; the wavelet's spectrum is
 /// kept per length (thread-safe).
+/// Each segment's mean is subtracted before the convolution (recorded in the manifest as <c>segment_mean_removed</c>):
+/// the wavelet has zero mean, but near the segment's ends it meets the zero extension, where a constant offset would
+/// still leak in; with both, a constant offset gives no response anywhere.
 /// </remarks>
 public sealed class MorletDecomposition : IBandDecomposition
 {
     private readonly CentredConvolution _convolution;
+    private readonly ThreadLocal<double[]?> _demeaned = new();
 
     /// <summary>Uses a built wavelet for a band.</summary>
     /// <param name="band">The band the wavelet stands for.</param>
@@ -35,6 +40,9 @@ public sealed class MorletDecomposition : IBandDecomposition
             ["time_sd_s"] = wavelet.TimeSd,
             ["freq_sd_hz"] = wavelet.FrequencySd,
             ["support_samples"] = wavelet.Length,
+            ["dc_correction"] = wavelet.DcCorrection,
+            ["segment_mean_removed"] = 1,
+            ["edge_reach_s"] = wavelet.HalfLength / wavelet.SampleRate,
         });
     }
 
@@ -70,6 +78,19 @@ public sealed class MorletDecomposition : IBandDecomposition
     /// <inheritdoc/>
     public DecompositionInfo Info { get; }
 
-    /// <inheritdoc/>
-    public void Apply(ReadOnlySpan<double> input, Span<Complex> output) => _convolution.Apply(input, output);
+    /// <summary>
+    /// Writes the wavelet transform of <paramref name="input"/> minus its own mean (the mean over the whole segment
+    /// given, padding included) to <paramref name="output"/>.
+    /// </summary>
+    public void Apply(ReadOnlySpan<double> input, Span<Complex> output)
+    {
+        var buffer = _demeaned.Value;
+        if (buffer is null || buffer.Length < input.Length) _demeaned.Value = buffer = new double[input.Length];
+        var centred = buffer.AsSpan(0, input.Length);
+        double sum = 0;
+        foreach (double v in input) sum += v;
+        double mean = input.Length > 0 ? sum / input.Length : 0;
+        for (int i = 0; i < input.Length; i++) centred[i] = input[i] - mean;
+        _convolution.Apply(centred, output);
+    }
 }

@@ -4,9 +4,10 @@ using System.Numerics;
 namespace Coupling.Spectral;
 
 /// <summary>
-/// A sampled complex Morlet wavelet psi(t) = A exp(2 pi i f t) exp(-t^2 / (2 st^2)) at t = k / fs, k = -K..K, with
-/// time standard deviation st = cycles / (2 pi f), spectral standard deviation sf = 1 / (2 pi st) = f / cycles, and
-/// A chosen for unit energy (sum_k |psi[k]|^2 = 1 over the samples kept).
+/// A sampled, zero-mean complex Morlet wavelet psi(t) = A (exp(2 pi i f t) - kappa) exp(-t^2 / (2 st^2)) at t = k / fs,
+/// k = -K..K, with time standard deviation st = cycles / (2 pi f), spectral standard deviation sf = 1 / (2 pi st) =
+/// f / cycles, kappa chosen so that the samples sum to exactly zero (up to rounding), and A chosen for unit energy
+/// (sum_k |psi[k]|^2 = 1 over the samples kept).
 /// </summary>
 /// <remarks>
 /// Tallon-Baudry, C., Bertrand, O., Delpuech, C. and Pernier, J. (1996), "Stimulus specificity of phase-locked and
@@ -15,8 +16,14 @@ namespace Coupling.Spectral;
 /// really different approaches?", J. Neurosci. Methods 137, 321-332. The support is cut at +-5 st
 /// (K = ceil(5 st fs)): the envelope there is exp(-12.5) = 3.7e-6 of its peak, so the cut changes the energy by
 /// about 1e-11 and the spectrum by a few parts per million of its peak.
-/// The Gaussian spectrum has a tail at 0 Hz of exp(-cycles^2 / 2) relative to its peak (0.011 at 3 cycles, 4e-6 at
-/// 5), so a wavelet of few cycles passes part of a constant offset; remove the segment mean first when that matters.
+/// Zero mean (admissibility): without kappa the Gaussian spectrum keeps exp(-cycles^2 / 2) of its peak at 0 Hz (0.011
+/// at 3 cycles), so a constant offset leaks into the band. The continuous correction term is
+/// kappa = exp(-cycles^2 / 2), which makes the spectrum
+/// Psi(f') = A st sqrt(2 pi) [exp(-(f' - f)^2 / (2 sf^2)) - kappa exp(-f'^2 / (2 sf^2))], zero at f' = 0 (the complete
+/// Morlet wavelet; Addison, P. S. (2002), The Illustrated Wavelet Transform Handbook, IOP Publishing, section 2.3,
+/// from memory). Here kappa is the sampled version, kappa = sum_k g[k] exp(2 pi i f k / fs) / sum_k g[k] with g the
+/// Gaussian envelope (real, because g is even), which removes the DC component of the samples exactly; it differs from
+/// exp(-cycles^2 / 2) only by the cut and the sampling (parts per million of it).
 /// </remarks>
 public sealed record MorletWavelet
 {
@@ -32,13 +39,24 @@ public sealed record MorletWavelet
         FrequencySd = 1 / (2 * Math.PI * TimeSd);
         HalfLength = (int)Math.Ceiling(SupportSd * TimeSd * sampleRate);
         var samples = new Complex[2 * HalfLength + 1];
-        double energy = 0;
+        var envelope = new double[samples.Length];
+        double envelopeSum = 0, carrierSum = 0;
         for (int k = -HalfLength; k <= HalfLength; k++)
         {
             double t = k / sampleRate;
-            double envelope = Math.Exp(-t * t / (2 * TimeSd * TimeSd));
-            samples[k + HalfLength] = Complex.FromPolarCoordinates(envelope, 2 * Math.PI * centreHz * t);
-            energy += envelope * envelope;
+            double g = Math.Exp(-t * t / (2 * TimeSd * TimeSd));
+            envelope[k + HalfLength] = g;
+            envelopeSum += g;
+            carrierSum += g * Math.Cos(2 * Math.PI * centreHz * t);
+        }
+        DcCorrection = carrierSum / envelopeSum;
+        double energy = 0;
+        for (int k = -HalfLength; k <= HalfLength; k++)
+        {
+            double t = k / sampleRate, g = envelope[k + HalfLength];
+            var value = g * (Complex.FromPolarCoordinates(1, 2 * Math.PI * centreHz * t) - DcCorrection);
+            samples[k + HalfLength] = value;
+            energy += value.Real * value.Real + value.Imaginary * value.Imaginary;
         }
         double scale = 1 / Math.Sqrt(energy);
         for (int i = 0; i < samples.Length; i++) samples[i] *= scale;
@@ -85,6 +103,12 @@ public sealed record MorletWavelet
 
     /// <summary>Spectral standard deviation sf = 1 / (2 pi st) of the Gaussian spectrum, Hz.</summary>
     public double FrequencySd { get; }
+
+    /// <summary>
+    /// kappa, the term subtracted from the carrier so that the samples sum to zero: sum_k g[k] cos(2 pi f k / fs) /
+    /// sum_k g[k], close to exp(-cycles^2 / 2).
+    /// </summary>
+    public double DcCorrection { get; }
 
     /// <summary>K: samples on each side of the centre, ceil(5 st fs).</summary>
     public int HalfLength { get; }

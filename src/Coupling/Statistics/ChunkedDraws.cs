@@ -15,19 +15,29 @@ internal static class ChunkedDraws
     private const int ChunksPerWave = 32;
 
     /// <summary>
+    /// Bound on the memory of one wave's chunk summaries (20 bytes per cell each): with many pairs and measures a wave
+    /// holds fewer chunks (at least two per worker thread), so the summaries kept alive do not grow to hundreds of MB.
+    /// The result does not depend on it: chunks are always merged in chunk order.
+    /// </summary>
+    private const long WaveBytes = 64L << 20;
+
+    /// <summary>
     /// Runs draws 0..<paramref name="draws"/>−1. <paramref name="draw"/> computes draw d with a worker (one thread at a
     /// time per worker) and returns the values of every cell; workers are made by <paramref name="createWorker"/> as
     /// threads need them, after <paramref name="first"/> (if given) is used. <paramref name="observer"/>, if given, sees
     /// every draw's values too.
     /// </summary>
-    public static NullAccumulator Run<TWorker>(int draws, double[] observedStatistic, bool[] twoSided, TWorker? first,
+    public static NullAccumulator Run<TWorker>(int draws, double[] observed, TWorker? first,
         Func<TWorker> createWorker, Func<TWorker, int, double[]> draw, int? maxThreads, IProgress<int>? progress,
         CancellationToken cancellationToken, IDrawObserver? observer = null)
         where TWorker : class
     {
-        int cells = observedStatistic.Length;
+        int cells = observed.Length;
         int chunks = (draws + DrawsPerChunk - 1) / DrawsPerChunk;
-        var wave = new NullAccumulator[Math.Min(ChunksPerWave, chunks)];
+        int threads = maxThreads ?? Environment.ProcessorCount;
+        long byMemory = WaveBytes / (20L * Math.Max(1, cells));
+        int perWave = (int)Math.Min(ChunksPerWave, Math.Max(byMemory, 2L * threads));
+        var wave = new NullAccumulator[Math.Min(perWave, chunks)];
         for (int i = 0; i < wave.Length; i++) wave[i] = new NullAccumulator(cells);
         var total = new NullAccumulator(cells);
         var workers = new ConcurrentBag<TWorker>();
@@ -53,7 +63,7 @@ internal static class ChunkedDraws
                 for (int d = start; d < end; d++)
                 {
                     var values = draw(worker, d);
-                    accumulator.Add(values, observedStatistic, twoSided);
+                    accumulator.Add(values, observed);
                     observer?.Observe(d, values);
                 }
                 workers.Add(worker);

@@ -17,20 +17,24 @@ namespace Coupling.Statistics;
 /// permutation tests for functional neuroimaging: a primer with examples", Hum Brain Mapp 15:1-25). Keeping N_A and
 /// N_B fixed matters because PLV, coherence and the other non-debiased measures are biased upward by an amount that
 /// depends on the trial count: every split has the same counts, so the same bias enters the observed and the
-/// permuted Δ, and the test stays exact even when N_A ≠ N_B.</para>
+/// permuted Δ, and the test stays exact even when N_A ≠ N_B. That bias also means the null of Δ is not centred at 0
+/// when N_A ≠ N_B, so the test is two-sided against the null itself, not on |Δ|.</para>
 /// <para>Draw d (0..M−1) takes the permutation <see cref="TrialShuffle.Generate"/>(seed, d) of the N_A + N_B pooled
 /// trials (A's trials first, then B's) and gives its first N_A entries to A and the rest to B: each N_A-subset is then
 /// equally likely. Both groups' measures are computed as observed values (<see cref="PairwiseKernels.Compute"/> with
-/// the trials in their own order). The test is two-sided on |Δ|: b = number of draws with |Δ| ≥ |Δ_observed|,
-/// p = (b + 1)/(M + 1) (Phipson and Smyth 2010, "Permutation p-values should never be zero", Stat Appl Genet Mol Biol
-/// 9(1):39); z = (Δ − mean)/sd with the draws' sample standard deviation. Draws are run in fixed chunks merged in
-/// chunk order, so the result does not depend on the thread count.</para>
+/// the trials in their own order). Two-sided against the null itself (<see cref="PermutationP.TwoSided"/>): with
+/// b_upper the draws with Δ ≥ Δ_observed and b_lower those with Δ ≤ Δ_observed, p = min(1, 2 · min(b_upper + 1,
+/// b_lower + 1)/(M + 1)) (Phipson and Smyth 2010, "Permutation p-values should never be zero", Stat Appl Genet Mol
+/// Biol 9(1):39, for each one-sided p); the exceedance count reported is the smaller of b_upper and b_lower; z is the
+/// rank-based normal deviate of <see cref="PermutationP.RankZ"/>. With evoked removal, every group of every split is
+/// centred on its own trial mean (see <see cref="Run(NarrowbandSet, NarrowbandSet, IReadOnlyList{Measure}, int, ulong, string, bool, int?, IProgress{int}?, CancellationToken)"/>).
+/// Draws are run in fixed chunks merged in chunk order, so the result does not depend on the thread count.</para>
 /// <para>Memory: the pooled set (the two sets' data once more) plus, per worker thread, the data and kernel tables of
 /// one split.</para>
 /// </remarks>
 public static class ConditionContrast
 {
-    /// <summary>Runs the test.</summary>
+    /// <summary>Runs the test on the trials as they are (no evoked removal).</summary>
     /// <param name="a">Narrowband signals of condition A in one band.</param>
     /// <param name="b">Narrowband signals of condition B in the same band: same channels and time points.</param>
     /// <param name="measures">The measures to test, each at most once.</param>
@@ -49,10 +53,46 @@ public static class ConditionContrast
         CancellationToken cancellationToken = default) =>
         RunObserved(a, b, measures, draws, seed, contrast, maxThreads, progress, cancellationToken, null);
 
-    /// <summary>As the public <c>Run</c>, with <paramref name="observer"/> seeing every draw's differences (cells measure-major, pairs in PairIndex order).</summary>
+    /// <summary>
+    /// Runs the test, optionally removing the evoked response inside every group: with
+    /// <paramref name="subtractEvoked"/>, <paramref name="a"/> and <paramref name="b"/> hold the narrowband signals of
+    /// the trials as recorded, and each group's own trial mean (per channel and time point) is subtracted from its
+    /// trials before its measures are computed, for the observed conditions and for both groups of every split alike.
+    /// </summary>
+    /// <remarks>
+    /// Removing the mean per original condition before pooling would leave the observed groups centred on their own
+    /// mean (residuals of N trials that behave like N − 1) and the permuted groups on a mixture of the two conditions'
+    /// means, so the groups would no longer be exchangeable and the test would reject too often at unequal trial counts.
+    /// Centring every group of every split the same way keeps them exchangeable under the null hypothesis. Band isolation
+    /// is linear and the same for every trial, so subtracting the trial mean of the narrowband signals equals subtracting
+    /// the trial mean of the recorded trials before band isolation (up to rounding).
+    /// </remarks>
+    /// <param name="a">Narrowband signals of condition A.</param>
+    /// <param name="b">Narrowband signals of condition B.</param>
+    /// <param name="measures">The measures to test, each at most once.</param>
+    /// <param name="draws">Number of label permutations M, at least 1.</param>
+    /// <param name="seed">Seed of the permutations.</param>
+    /// <param name="contrast">Name of the contrast, used in error messages.</param>
+    /// <param name="subtractEvoked">Whether to subtract each group's trial mean from its trials.</param>
+    /// <param name="maxThreads">Upper bound on worker threads; null uses every core.</param>
+    /// <param name="progress">Told the number of draws finished so far after each chunk, from the worker threads.</param>
+    /// <param name="cancellationToken">Stops the run between chunks with <see cref="OperationCanceledException"/>.</param>
+    /// <returns>One result per measure, in the order of <paramref name="measures"/>.</returns>
+    /// <exception cref="InputException">Fewer than 1 draw, fewer than 2 trials in a condition, or fewer distinct splits
+    /// C(N_A + N_B, N_A) than draws; the message names the contrast.</exception>
+    /// <exception cref="ArgumentException">The sets differ in channels or time points; no measures or a measure listed twice.</exception>
+    public static IReadOnlyList<ContrastResult> Run(NarrowbandSet a, NarrowbandSet b, IReadOnlyList<Measure> measures, int draws,
+        ulong seed, string contrast, bool subtractEvoked, int? maxThreads = null, IProgress<int>? progress = null,
+        CancellationToken cancellationToken = default) =>
+        RunObserved(a, b, measures, draws, seed, contrast, maxThreads, progress, cancellationToken, null, subtractEvoked);
+
+    /// <summary>
+    /// As the public <c>Run</c>, with <paramref name="observer"/> seeing every draw's differences (cells measure-major,
+    /// pairs in PairIndex order) and <paramref name="subtractEvoked"/> removing each group's trial mean inside every draw.
+    /// </summary>
     internal static IReadOnlyList<ContrastResult> RunObserved(NarrowbandSet a, NarrowbandSet b, IReadOnlyList<Measure> measures, int draws,
         ulong seed, string contrast, int? maxThreads, IProgress<int>? progress, CancellationToken cancellationToken,
-        IDrawObserver? observer)
+        IDrawObserver? observer, bool subtractEvoked = false)
     {
         ArgumentNullException.ThrowIfNull(a);
         ArgumentNullException.ThrowIfNull(b);
@@ -65,37 +105,53 @@ public static class ConditionContrast
             throw new ArgumentException("Both conditions must have the same time points.", nameof(b));
         CheckFeasible(a.TrialCount, b.TrialCount, draws, contrast);
 
-        var observedA = new Worker(a, measures);
-        var observedB = new Worker(b, measures);
+        var groupA = subtractEvoked ? Centred(a) : a;
+        var groupB = subtractEvoked ? Centred(b) : b;
+        var observedA = new Worker(groupA, measures);
+        var observedB = new Worker(groupB, measures);
         int slots = measures.Count, pairs = PairIndex.Count(a.ChannelCount), cells = slots * pairs;
-        var valueA = observedA.Compute(a);
-        var valueB = observedB.Compute(b);
+        var valueA = observedA.Compute(groupA);
+        var valueB = observedB.Compute(groupB);
         var difference = new double[cells];
-        var observedStatistic = new double[cells];
-        var twoSided = new bool[cells];
-        for (int i = 0; i < cells; i++)
-        {
-            difference[i] = valueA[i] - valueB[i];
-            observedStatistic[i] = Math.Abs(difference[i]);
-            twoSided[i] = true;
-        }
+        for (int i = 0; i < cells; i++) difference[i] = valueA[i] - valueB[i];
 
         var pooled = Pool(a, b);
         int countA = a.TrialCount;
-        var total = ChunkedDraws.Run<SplitWorker>(draws, observedStatistic, twoSided, null,
-            () => new SplitWorker(pooled, countA, measures),
+        var total = ChunkedDraws.Run<SplitWorker>(draws, difference, null,
+            () => new SplitWorker(pooled, countA, measures, subtractEvoked),
             (worker, d) => worker.Draw(seed, d),
             maxThreads, progress, cancellationToken, observer);
 
         var results = new ContrastResult[slots];
         for (int k = 0; k < slots; k++)
         {
-            var n = total.Summarise(k, pairs, draws, difference, observedStatistic);
+            var n = total.Summarise(k, pairs, draws, difference, TestTail.TwoSided);
             results[k] = new ContrastResult(measures[k], draws, valueA.AsSpan(k * pairs, pairs).ToArray(),
                 valueB.AsSpan(k * pairs, pairs).ToArray(), difference.AsSpan(k * pairs, pairs).ToArray(), n.Mean, n.Sd,
                 n.Exceedances, n.P, n.Z);
         }
         return results;
+    }
+
+    /// <summary>A copy of <paramref name="set"/> with, per time point and channel, the mean over its trials subtracted.</summary>
+    private static NarrowbandSet Centred(NarrowbandSet set)
+    {
+        var data = set.Data.ToArray();
+        CentreInPlace(data, set.TrialCount);
+        return new NarrowbandSet(set.Band, set.Channels, set.TrialCount, set.Times, data);
+    }
+
+    /// <summary>Subtracts from each row of <paramref name="trials"/> values (one time point of one channel) the row's mean.</summary>
+    private static void CentreInPlace(Span<Complex> data, int trials)
+    {
+        for (int start = 0; start < data.Length; start += trials)
+        {
+            var row = data.Slice(start, trials);
+            Complex sum = Complex.Zero;
+            foreach (var v in row) sum += v;
+            var mean = sum / trials;
+            for (int n = 0; n < row.Length; n++) row[n] -= mean;
+        }
     }
 
     /// <summary>
@@ -168,9 +224,12 @@ public static class ConditionContrast
         private readonly Worker _workerA, _workerB;
         private readonly double[] _difference;
 
-        public SplitWorker(NarrowbandSet pooled, int countA, IReadOnlyList<Measure> measures)
+        private readonly bool _centre;
+
+        public SplitWorker(NarrowbandSet pooled, int countA, IReadOnlyList<Measure> measures, bool centre)
         {
             _pooled = pooled;
+            _centre = centre;
             _countA = countA;
             int countB = pooled.TrialCount - countA, cells = pooled.TimeCount * pooled.ChannelCount;
             _permutation = new int[pooled.TrialCount];
@@ -193,6 +252,11 @@ public static class ConditionContrast
                 int source = r * n, targetA = r * _countA, targetB = r * countB;
                 for (int j = 0; j < _countA; j++) _dataA[targetA + j] = data[source + _permutation[j]];
                 for (int j = 0; j < countB; j++) _dataB[targetB + j] = data[source + _permutation[_countA + j]];
+            }
+            if (_centre)
+            {
+                CentreInPlace(_dataA, _countA);
+                CentreInPlace(_dataB, countB);
             }
             var valuesA = _workerA.Compute(_setA);
             var valuesB = _workerB.Compute(_setB);

@@ -13,9 +13,12 @@ namespace Coupling.Statistics;
 /// <param name="Difference">ValueA − ValueB per pair.</param>
 /// <param name="NullMean">Mean of Δ over the permutations.</param>
 /// <param name="NullSd">Sample standard deviation (divisor M − 1) of Δ over the permutations; NaN when M = 1.</param>
-/// <param name="Exceedances">b: the number of permutations whose |Δ| is at or above the observed |Δ|.</param>
-/// <param name="P">(b + 1)/(M + 1), two-sided; NaN where the observed difference is NaN.</param>
-/// <param name="Z">(Difference − NullMean)/NullSd, signed; NaN where the standard deviation is 0 or NaN.</param>
+/// <param name="Exceedances">b: the smaller of the number of permutations with Δ at or above the observed Δ and the
+/// number with Δ at or below it.</param>
+/// <param name="P">min(1, 2(b + 1)/(M + 1)), two-sided against the permutation null itself
+/// (<see cref="PermutationP.TwoSided"/>); NaN where the observed difference is NaN.</param>
+/// <param name="Z">Rank-based z of the observed Δ among the permutations (<see cref="PermutationP.RankZ"/>), signed;
+/// NaN where the observed difference is NaN.</param>
 public sealed record ContrastResult(
     Measure Measure,
     int Draws,

@@ -43,10 +43,11 @@ public static class FamilyCorrection
     }
 
     /// <summary>The condition-label permutation test of a contrast, corrected per measure across its pairs (two-sided).</summary>
-    /// <exception cref="InputException">As <see cref="ConditionContrast.Run"/>.</exception>
+    /// <exception cref="InputException">As <see cref="ConditionContrast"/>.</exception>
     public static IReadOnlyList<(ContrastResult Test, FamilyOutcome Outcome)> TestContrast(NarrowbandSet a, NarrowbandSet b,
         IReadOnlyList<Measure> measures, int draws, ulong seed, string contrast, CorrectionSpec correction, double level,
-        int? maxThreads = null, IProgress<int>? progress = null, CancellationToken cancellationToken = default)
+        int? maxThreads = null, IProgress<int>? progress = null, CancellationToken cancellationToken = default,
+        bool subtractEvoked = false)
     {
         ArgumentNullException.ThrowIfNull(a);
         ArgumentNullException.ThrowIfNull(measures);
@@ -54,9 +55,9 @@ public static class FamilyCorrection
         int pairs = PairIndex.Count(a.ChannelCount), cells = measures.Count * pairs;
         var twoSided = Enumerable.Repeat(true, cells).ToArray();
         var tail = correction.ParetoTail ? new TailSample(cells, TailSample.KeptFor(draws)) : null;
-        var tested = ConditionContrast.RunObserved(a, b, measures, draws, seed, contrast, maxThreads, progress, cancellationToken, tail);
+        var tested = ConditionContrast.RunObserved(a, b, measures, draws, seed, contrast, maxThreads, progress, cancellationToken, tail, subtractEvoked);
         var maxima = Replay(correction, tested.Select(t => (t.Difference, t.NullMean, t.NullSd)).ToArray(), twoSided, draws,
-            a.ChannelCount, observer => ConditionContrast.RunObserved(a, b, measures, draws, seed, contrast, maxThreads, progress, cancellationToken, observer));
+            a.ChannelCount, observer => ConditionContrast.RunObserved(a, b, measures, draws, seed, contrast, maxThreads, progress, cancellationToken, observer, subtractEvoked));
         return tested.Select((t, k) => (t, Finish(correction, level, k, pairs, a.ChannelCount, draws, t.Difference, t.P,
             true, tail, maxima))).ToArray();
     }

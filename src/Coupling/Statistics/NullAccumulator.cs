@@ -2,7 +2,9 @@ namespace Coupling.Statistics;
 
 /// <summary>
 /// Running summaries of surrogate values for many (measure, pair) cells at once: Welford's mean and sum of squared
-/// deviations, and the exceedance count. Chunks are merged with the pairwise formula of Chan, Golub and LeVeque.
+/// deviations, and the counts of draws strictly below and strictly above the observed value, from which
+/// <see cref="PermutationP"/> forms the p-value of either tail and the rank-based z. Chunks are merged with the pairwise
+/// formula of Chan, Golub and LeVeque; counts add.
 /// </summary>
 /// <remarks>
 /// Welford (1962), Technometrics 4:419-420; Chan, Golub, LeVeque (1983), "Algorithms for computing the sample
@@ -14,24 +16,30 @@ internal sealed class NullAccumulator
     {
         Mean = new double[cells];
         SquaredDeviations = new double[cells];
-        Exceedances = new int[cells];
+        Below = new int[cells];
+        Above = new int[cells];
     }
 
     public long Count { get; private set; }
     public double[] Mean { get; }
     public double[] SquaredDeviations { get; }
-    public int[] Exceedances { get; }
+    /// <summary>Per cell: draws strictly below the observed value.</summary>
+    public int[] Below { get; }
+
+    /// <summary>Per cell: draws strictly above the observed value (a NaN draw is in neither count).</summary>
+    public int[] Above { get; }
 
     public void Reset()
     {
         Count = 0;
         Array.Clear(Mean);
         Array.Clear(SquaredDeviations);
-        Array.Clear(Exceedances);
+        Array.Clear(Below);
+        Array.Clear(Above);
     }
 
-    /// <summary>Adds one draw; a cell exceeds when its statistic is at or above the observed statistic.</summary>
-    public void Add(ReadOnlySpan<double> values, ReadOnlySpan<double> observedStatistic, ReadOnlySpan<bool> twoSided)
+    /// <summary>Adds one draw: its values, compared with the observed values of the same cells.</summary>
+    public void Add(ReadOnlySpan<double> values, ReadOnlySpan<double> observed)
     {
         Count++;
         double count = Count;
@@ -41,8 +49,8 @@ internal sealed class NullAccumulator
             double delta = v - Mean[i];
             Mean[i] += delta / count;
             SquaredDeviations[i] += delta * (v - Mean[i]);
-            double statistic = twoSided[i] ? Math.Abs(v) : v;
-            if (statistic >= observedStatistic[i]) Exceedances[i]++;
+            if (v < observed[i]) Below[i]++;
+            else if (v > observed[i]) Above[i]++;
         }
     }
 
@@ -55,7 +63,8 @@ internal sealed class NullAccumulator
             Count = other.Count;
             other.Mean.CopyTo(Mean, 0);
             other.SquaredDeviations.CopyTo(SquaredDeviations, 0);
-            other.Exceedances.CopyTo(Exceedances, 0);
+            other.Below.CopyTo(Below, 0);
+            other.Above.CopyTo(Above, 0);
             return;
         }
         double n = Count + other.Count, nA = Count, nB = other.Count;
@@ -64,27 +73,29 @@ internal sealed class NullAccumulator
             double delta = other.Mean[i] - Mean[i];
             Mean[i] += delta * (nB / n);
             SquaredDeviations[i] += other.SquaredDeviations[i] + delta * delta * (nA * nB / n);
-            Exceedances[i] += other.Exceedances[i];
+            Below[i] += other.Below[i];
+            Above[i] += other.Above[i];
         }
         Count += other.Count;
     }
 
     /// <summary>
     /// The null summary of the cells <c>[slot·pairs, (slot+1)·pairs)</c> after <paramref name="draws"/> draws: mean,
-    /// standard deviation (n − 1 denominator; NaN for one draw), exceedance count b, p = (b+1)/(M+1) (Phipson &amp; Smyth
-    /// 2010; NaN where the observed statistic is NaN) and z = (observed − mean)/sd (NaN where sd is not positive).
+    /// standard deviation (n − 1 denominator; NaN for one draw), exceedance count b, p and rank-based z of the test's
+    /// <paramref name="tail"/> (<see cref="PermutationP"/>; p and z are NaN where the observed value is NaN).
     /// </summary>
-    public NullSummary Summarise(int slot, int pairs, int draws, ReadOnlySpan<double> observed, ReadOnlySpan<double> observedStatistic)
+    public NullSummary Summarise(int slot, int pairs, int draws, ReadOnlySpan<double> observed, Measures.TestTail tail)
     {
         var summary = new NullSummary(new double[pairs], new double[pairs], new int[pairs], new double[pairs], new double[pairs]);
         for (int p = 0; p < pairs; p++)
         {
             int i = slot * pairs + p;
+            bool missing = double.IsNaN(observed[i]);
             summary.Mean[p] = Mean[i];
             summary.Sd[p] = draws > 1 ? Math.Sqrt(SquaredDeviations[i] / (draws - 1)) : double.NaN;
-            summary.Exceedances[p] = Exceedances[i];
-            summary.P[p] = double.IsNaN(observedStatistic[i]) ? double.NaN : (Exceedances[i] + 1.0) / (draws + 1.0);
-            summary.Z[p] = summary.Sd[p] > 0 ? (observed[i] - summary.Mean[p]) / summary.Sd[p] : double.NaN;
+            summary.Exceedances[p] = PermutationP.Exceedances(tail, Below[i], Above[i], draws);
+            summary.P[p] = missing ? double.NaN : PermutationP.Of(tail, Below[i], Above[i], draws);
+            summary.Z[p] = missing ? double.NaN : PermutationP.RankZ(Below[i], Above[i], draws);
         }
         return summary;
     }

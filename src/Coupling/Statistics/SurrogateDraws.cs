@@ -43,13 +43,12 @@ public static class SurrogateDraws
             PairwiseKernels.Compute(workspace, order, value);
             values[d] = value[0];
         }
-        bool twoSided = MeasureCatalog.TailOf(measure) == TestTail.TwoSided;
-        double statistic = MeasureCatalog.TestStatistic(measure, observed);
-        int exceed = values.Count(v => MeasureCatalog.TestStatistic(measure, v) >= statistic);
-        double p = double.IsNaN(statistic) ? double.NaN : (exceed + 1.0) / (draws + 1.0);
-        double mean = values.Average();
-        double sd = draws > 1 ? Math.Sqrt(values.Sum(v => (v - mean) * (v - mean)) / (draws - 1)) : double.NaN;
-        double z = sd > 0 ? (observed - mean) / sd : double.NaN;
+        var tail = MeasureCatalog.TailOf(measure);
+        bool twoSided = tail == TestTail.TwoSided;
+        // The same tails and z as the surrogate test (PermutationP): counts below and above the observed value.
+        int below = values.Count(v => v < observed), above = values.Count(v => v > observed);
+        double p = double.IsNaN(observed) ? double.NaN : PermutationP.Of(tail, below, above, draws);
+        double z = double.IsNaN(observed) ? double.NaN : PermutationP.RankZ(below, above, draws);
         return new SurrogateDistribution(condition, set.Band.Name, MeasureCatalog.Key(measure), set.Channels[a], set.Channels[b],
             observed, values, twoSided, p, z, chosen);
     }

@@ -11,9 +11,12 @@ namespace Coupling.Statistics;
 /// <param name="Observed">Observed value per pair (trials in their own order), summarised over the window.</param>
 /// <param name="NullMean">Mean of the surrogate values (the values, not the test statistics).</param>
 /// <param name="NullSd">Sample standard deviation (divisor M − 1) of the surrogate values; NaN when M = 1.</param>
-/// <param name="Exceedances">b: the number of draws whose test statistic is at or above the observed one.</param>
-/// <param name="P">(b + 1)/(M + 1); NaN where the observed value is NaN.</param>
-/// <param name="Z">(Observed − NullMean)/NullSd, signed; NaN where the standard deviation is 0 or NaN.</param>
+/// <param name="Exceedances">b: for a one-sided measure the number of draws at or above the observed value; for a
+/// two-sided (signed) measure the smaller of that and the number of draws at or below it.</param>
+/// <param name="P">(b + 1)/(M + 1) one-sided, min(1, 2(b + 1)/(M + 1)) two-sided (<see cref="PermutationP"/>); NaN
+/// where the observed value is NaN.</param>
+/// <param name="Z">Rank-based z of the observed value among the draws (<see cref="PermutationP.RankZ"/>), signed; NaN
+/// where the observed value is NaN.</param>
 public sealed record SurrogateResult(
     Measure Measure,
     int Draws,

@@ -8,16 +8,22 @@ namespace Coupling.Statistics;
 /// pair are put in a random order, which keeps each channel's own signal (including anything locked to the stimulus,
 /// which is the same in every trial) and destroys only the trial-by-trial correspondence between the two channels.
 /// Coupling that is merely a shared stimulus-locked response therefore survives the shuffle and is not significant;
-/// what is significant is coupling that goes beyond it, trial by trial.
+/// what is significant is coupling that goes beyond it, trial by trial. This holds only for a response that is the
+/// same in every trial: one whose latency or amplitude varies from trial to trial, shared by the channels, is itself
+/// trial-by-trial coupling and makes every measure significant (Truccolo et al. 2002, Clin Neurophysiol
+/// 113:206-226); see <see cref="EvokedShare"/>.
 /// </summary>
 /// <remarks>
 /// <para>Draw d (0..M−1) uses the trial order <see cref="TrialShuffle.Generate"/>(seed, d); one order serves all pairs
 /// and measures of that draw. Per measure and pair the draws are summarised as they come (running mean and variance,
-/// exceedance count b = number of draws whose test statistic, see <see cref="MeasureCatalog.TestStatistic"/>, is at or
-/// above the observed one); the draws themselves are never stored. p = (b + 1)/(M + 1), the exact p-value of a
-/// permutation test with randomly drawn permutations (Phipson and Smyth 2010, "Permutation p-values should never be
-/// zero", Stat Appl Genet Mol Biol 9(1):39); it lies in [1/(M+1), 1]. z = (observed − mean)/sd with the surrogates'
-/// sample standard deviation; z is NaN when that is 0 (or when M = 1).</para>
+/// the counts of draws below and above the observed value); the draws themselves are never stored. The tail of each
+/// measure is <see cref="MeasureCatalog.TailOf"/>: one-sided upper, p = (b + 1)/(M + 1) with b the draws at or above
+/// the observed value, the exact p-value of a permutation test with randomly drawn permutations (Phipson and Smyth
+/// 2010, "Permutation p-values should never be zero", Stat Appl Genet Mol Biol 9(1):39), in [1/(M+1), 1]; or, for the
+/// signed measures, two-sided against the null itself, p = min(1, 2 · min of the two one-sided p-values), whatever the
+/// null's centre (a stimulus-locked response with a lag between the channels, or a shared envelope, moves it away from
+/// 0). z is rank-based: the normal deviate of the observed value's mid-rank among the draws (<see cref="PermutationP"/>),
+/// signed, NaN where the observed value is NaN.</para>
 /// <para>Determinism: draws are processed in fixed chunks of <see cref="DrawsPerChunk"/>, each chunk summarised on
 /// its own and the chunk summaries merged in chunk order, so the result is the same to the last bit whatever the
 /// number of threads.</para>
@@ -65,20 +71,7 @@ public static class SurrogateTest
         for (int n = 0; n < trials; n++) identity[n] = n;
         var observed = new double[cells];
         PairwiseKernels.Compute(prototype, identity, observed);
-        var observedStatistic = new double[cells];
-        var twoSided = new bool[cells];
-        for (int k = 0; k < slots; k++)
-        {
-            bool two = MeasureCatalog.TailOf(measures[k]) == TestTail.TwoSided;
-            for (int p = 0; p < pairs; p++)
-            {
-                int i = k * pairs + p;
-                twoSided[i] = two;
-                observedStatistic[i] = MeasureCatalog.TestStatistic(measures[k], observed[i]);
-            }
-        }
-
-        var total = ChunkedDraws.Run(draws, observedStatistic, twoSided, new Worker(prototype),
+        var total = ChunkedDraws.Run(draws, observed, new Worker(prototype),
             () => new Worker(prototype.CreateSibling()),
             (worker, d) =>
             {
@@ -91,7 +84,7 @@ public static class SurrogateTest
         var results = new SurrogateResult[slots];
         for (int k = 0; k < slots; k++)
         {
-            var n = total.Summarise(k, pairs, draws, observed, observedStatistic);
+            var n = total.Summarise(k, pairs, draws, observed, MeasureCatalog.TailOf(measures[k]));
             results[k] = new SurrogateResult(measures[k], draws, observed.AsSpan(k * pairs, pairs).ToArray(), n.Mean, n.Sd,
                 n.Exceedances, n.P, n.Z);
         }

@@ -8,7 +8,7 @@ namespace Coupling.Statistics;
 /// reports. The results have the shapes of the tested ones, with 0 draws and NaN for every null statistic, p and z.
 /// </summary>
 /// <remarks>The values are exactly those of the tested path: <see cref="PairwiseKernels.Compute"/> with the trials in
-/// their own order, as <see cref="SurrogateTest.Run"/> and <see cref="ConditionContrast.Run"/> compute them.</remarks>
+/// their own order, as <see cref="SurrogateTest.Run"/> and <see cref="ConditionContrast"/> compute them.</remarks>
 public static class ValuesOnly
 {
     /// <summary>The observed value per measure and pair of one condition in one band; p, z and the null summary are NaN.</summary>

@@ -8,8 +8,8 @@ public static class EpochTrials
 {
     /// <summary>
     /// Selects the epochs of one condition and the samples of the trial span, padding each end by
-    /// <paramref name="padSamples"/> with samples of the epoch outside the span where it has them and by even
-    /// reflection at the epoch's own ends where it does not.
+    /// <paramref name="padSamples"/> with samples of the epoch outside the span where it has them and with zeros past
+    /// the epoch's own ends (counted in <see cref="TrialSet.ZerosBefore"/> and <see cref="TrialSet.ZerosAfter"/>).
     /// </summary>
     /// <param name="source">Names the input in errors.</param>
     /// <param name="data">Epochs in C order: epoch, channel, sample.</param>
@@ -37,14 +37,21 @@ public static class EpochTrials
         var chosen = Enumerable.Range(0, epochs).Where(e => labels.Contains(epochLabels[e])).ToArray();
         int total = length + 2 * padSamples, cc = channels.Count;
         var result = new double[(long)chosen.Length * cc * total];
+        int zerosBefore = 0, zerosAfter = 0;
         for (int n = 0; n < chosen.Length; n++)
             for (int c = 0; c < cc; c++)
             {
                 var epoch = data.AsSpan((chosen[n] * cc + c) * samples, samples);
-                TrialCutter.CopyReflected(epoch, offset - padSamples, result.AsSpan((n * cc + c) * total, total));
+                var (before, after) = TrialCutter.CopyPadded(epoch, offset - padSamples, result.AsSpan((n * cc + c) * total, total));
+                zerosBefore = Math.Max(zerosBefore, before);
+                zerosAfter = Math.Max(zerosAfter, after);
             }
         return new TrialSet(condition.Name, channels, sampleRate, chosen.Length, total, padSamples,
             firstSampleTime + offset / sampleRate, result, Enumerable.Repeat(double.NaN, chosen.Length).ToArray(),
-            Array.Empty<string>());
+            Array.Empty<string>())
+        {
+            ZerosBefore = zerosBefore,
+            ZerosAfter = zerosAfter,
+        };
     }
 }

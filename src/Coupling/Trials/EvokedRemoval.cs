@@ -11,27 +11,49 @@ public static class EvokedRemoval
     /// <remarks>
     /// With N trials the residual of trial n is x_n - (1/N) Σ_m x_m; it keeps the induced (non-phase-locked) activity.
     /// The subtraction is done before band decomposition, as is common practice (e.g. Kalcher &amp; Pfurtscheller 1995,
-    /// on separating induced from evoked activity by subtracting the average).
+    /// on separating induced from evoked activity by subtracting the average). It removes only the part of the response
+    /// that is the same in every trial: a latency or amplitude that varies from trial to trial leaves residuals shared by
+    /// the channels, which read as coupling (Truccolo et al. 2002, Clin Neurophysiol 113:206-226); the run warns when
+    /// the evoked share of a band's power is high (Statistics.EvokedShare).
     /// </remarks>
     public static void SubtractInPlace(TrialSet trials)
     {
-        int n = trials.TrialCount, c = trials.ChannelCount, s = trials.SampleCount;
-        if (n == 0) return;
-        var mean = new double[s];
-        for (int ch = 0; ch < c; ch++)
+        ArgumentNullException.ThrowIfNull(trials);
+        if (trials.TrialCount == 0) return;
+        var mean = Mean(trials);
+        for (int ch = 0; ch < trials.ChannelCount; ch++)
         {
-            Array.Clear(mean);
-            for (int t = 0; t < n; t++)
+            var m = mean.Trial(0, ch);
+            for (int t = 0; t < trials.TrialCount; t++)
             {
                 var x = trials.Trial(t, ch);
-                for (int i = 0; i < s; i++) mean[i] += x[i];
-            }
-            for (int i = 0; i < s; i++) mean[i] /= n;
-            for (int t = 0; t < n; t++)
-            {
-                var x = trials.Trial(t, ch);
-                for (int i = 0; i < s; i++) x[i] -= mean[i];
+                for (int i = 0; i < x.Length; i++) x[i] -= m[i];
             }
         }
+    }
+
+    /// <summary>
+    /// The trial mean of <paramref name="trials"/> (per channel and sample, padding included) as a set of one trial with
+    /// the same channels, rate, padding and span: what <see cref="SubtractInPlace"/> subtracts.
+    /// </summary>
+    /// <exception cref="ArgumentException">The set holds no trial.</exception>
+    public static TrialSet Mean(TrialSet trials)
+    {
+        ArgumentNullException.ThrowIfNull(trials);
+        int n = trials.TrialCount, c = trials.ChannelCount, s = trials.SampleCount;
+        if (n == 0) throw new ArgumentException("No trial to average.", nameof(trials));
+        var mean = new double[c * s];
+        for (int ch = 0; ch < c; ch++)
+        {
+            var target = mean.AsSpan(ch * s, s);
+            for (int t = 0; t < n; t++)
+            {
+                var x = trials.Trial(t, ch);
+                for (int i = 0; i < s; i++) target[i] += x[i];
+            }
+            for (int i = 0; i < s; i++) target[i] /= n;
+        }
+        return new TrialSet(trials.Condition, trials.Channels, trials.SampleRate, 1, s, trials.PadSamples, trials.SpanStart, mean,
+            [double.NaN], []);
     }
 }

@@ -15,7 +15,9 @@ public static class TrialCutter
     /// The onset sample is <c>round(onset * rate)</c>; the trial holds <c>round(span.Length * rate)</c> samples starting
     /// <c>round(span.Start * rate)</c> samples from it. A trial whose span runs past either end of the recording is
     /// dropped and reported in <see cref="TrialSet.DroppedTrials"/>. Padding that runs past an end of the recording is
-    /// filled by even reflection about the end sample (x[-k] = x[k]), so every kept trial is still analysed on real data.
+    /// filled with zeros, never with time-reversed data (a reflected copy reverses time, so a lag between two channels
+    /// would change sign there); how many samples that takes at each end is in <see cref="TrialSet.ZerosBefore"/> and
+    /// <see cref="TrialSet.ZerosAfter"/>, and the run refuses a window that band isolation would reach from them.
     /// </remarks>
     /// <param name="recording">The recording (selected channels only).</param>
     /// <param name="condition">The condition whose event labels start trials.</param>
@@ -41,10 +43,19 @@ public static class TrialCutter
         int channels = source.Channels.Count;
         var data = new double[(long)located.Starts.Count * channels * total];
         double[]? scratch = null;
+        int zerosBefore = 0, zerosAfter = 0;
         for (int n = 0; n < located.Starts.Count; n++)
-            ReadReflected(source, located.Starts[n] - padSamples, total, data.AsSpan(n * channels * total, channels * total), ref scratch);
+        {
+            var (before, after) = ReadPadded(source, located.Starts[n] - padSamples, total, data.AsSpan(n * channels * total, channels * total), ref scratch);
+            zerosBefore = Math.Max(zerosBefore, before);
+            zerosAfter = Math.Max(zerosAfter, after);
+        }
         return new TrialSet(condition.Name, source.Channels.Select(ch => ch.Label).ToArray(), source.SampleRate, located.Starts.Count,
-            total, padSamples, located.Offset / source.SampleRate, data, located.Onsets, located.Dropped);
+            total, padSamples, located.Offset / source.SampleRate, data, located.Onsets, located.Dropped)
+        {
+            ZerosBefore = zerosBefore,
+            ZerosAfter = zerosAfter,
+        };
     }
 
     /// <summary>
@@ -87,55 +98,40 @@ public static class TrialCutter
 
     /// <summary>
     /// Reads samples <c>start .. start + length - 1</c> of every channel into <paramref name="target"/> (channel-major),
-    /// reflecting indices that fall outside the source as <see cref="CopyReflected"/> does. Only the samples the
-    /// reflected indices reach are read; <paramref name="scratch"/> is grown as needed and reused.
+    /// with zeros where the indices fall outside the source; <paramref name="scratch"/> is grown as needed and reused.
     /// </summary>
-    internal static void ReadReflected(ISampleSource source, int start, int length, Span<double> target, ref double[]? scratch)
+    /// <returns>The number of zeros before the first sample and after the last one.</returns>
+    internal static (int Before, int After) ReadPadded(ISampleSource source, int start, int length, Span<double> target, ref double[]? scratch)
     {
-        int n = source.SampleCount;
-        if (start >= 0 && start + length <= n)
+        int n = source.SampleCount, channels = source.Channels.Count;
+        int before = Math.Clamp(-start, 0, length), after = Math.Clamp(start + length - n, 0, length - before);
+        int inside = length - before - after;
+        if (before == 0 && after == 0)
         {
             source.Read(start, length, target);
-            return;
+            return (0, 0);
         }
-        int lo = int.MaxValue, hi = -1;
-        for (int i = 0; i < length; i++)
+        target.Clear();
+        if (inside > 0)
         {
-            int j = Reflect(start + i, n);
-            lo = Math.Min(lo, j);
-            hi = Math.Max(hi, j);
+            if (scratch is null || scratch.Length < channels * inside) scratch = new double[channels * inside];
+            source.Read(start + before, inside, scratch.AsSpan(0, channels * inside));
+            for (int c = 0; c < channels; c++)
+                scratch.AsSpan(c * inside, inside).CopyTo(target.Slice(c * length + before, inside));
         }
-        int width = hi - lo + 1, channels = source.Channels.Count;
-        if (scratch is null || scratch.Length < channels * width) scratch = new double[channels * width];
-        source.Read(lo, width, scratch.AsSpan(0, channels * width));
-        for (int c = 0; c < channels; c++)
-        {
-            var row = scratch.AsSpan(c * width, width);
-            var to = target.Slice(c * length, length);
-            for (int i = 0; i < length; i++) to[i] = row[Reflect(start + i, n) - lo];
-        }
+        return (before, after);
     }
 
-    /// <summary>Copies <c>source[start .. start + target.Length)</c>, reflecting indices that fall outside the source.</summary>
-    internal static void CopyReflected(ReadOnlySpan<double> source, int start, Span<double> target)
+    /// <summary>Copies <c>source[start .. start + target.Length)</c>, with zeros where the indices fall outside the source.</summary>
+    /// <returns>The number of zeros before the first sample and after the last one.</returns>
+    internal static (int Before, int After) CopyPadded(ReadOnlySpan<double> source, int start, Span<double> target)
     {
-        int n = source.Length;
-        if (start >= 0 && start + target.Length <= n)
-        {
-            source.Slice(start, target.Length).CopyTo(target);
-            return;
-        }
-        for (int i = 0; i < target.Length; i++) target[i] = source[Reflect(start + i, n)];
-    }
-
-    /// <summary>Even reflection of an index into 0..n-1 (period 2n - 2).</summary>
-    internal static int Reflect(int i, int n)
-    {
-        if (n == 1) return 0;
-        int period = 2 * n - 2;
-        i %= period;
-        if (i < 0) i += period;
-        return i < n ? i : period - i;
+        int n = source.Length, length = target.Length;
+        int before = Math.Clamp(-start, 0, length), after = Math.Clamp(start + length - n, 0, length - before);
+        int inside = length - before - after;
+        target.Clear();
+        if (inside > 0) source.Slice(start + before, inside).CopyTo(target.Slice(before, inside));
+        return (before, after);
     }
 
     private static string Fmt(double v) => v.ToString("0.###", CultureInfo.InvariantCulture);

@@ -61,6 +61,15 @@ public sealed class TrialSet
     /// <summary>Onset in seconds from the recording start of each kept trial (NaN when the input was already cut).</summary>
     public IReadOnlyList<double> Onsets { get; }
 
+    /// <summary>
+    /// Samples at the start of the padding that hold zeros because the recording or epoch has no data there (the most
+    /// over the trials; 0 when every trial is padded with recorded data).
+    /// </summary>
+    public int ZerosBefore { get; init; }
+
+    /// <summary>Samples at the end of the padding that hold zeros for want of data (the most over the trials).</summary>
+    public int ZerosAfter { get; init; }
+
     /// <summary>One line per trial that was left out, saying which and why.</summary>
     public IReadOnlyList<string> DroppedTrials { get; }
 

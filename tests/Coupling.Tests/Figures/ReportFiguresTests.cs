@@ -50,7 +50,7 @@ public class ReportFiguresTests
         using var dir = new TempFolder();
         SurrogateFigure.Save(d, dir["s.png"]);
         Assert.Equal((900, 500), PngHeader.Read(dir["s.png"]));
-        Assert.Equal(["s.png"], dir.Entries());
+        Assert.Equal(["s.png", "s.svg"], dir.Entries());
     }
 
     [Fact]

@@ -102,8 +102,8 @@ public sealed class BadInputTests(SmallScenario scenario) : IClassFixture<SmallS
     {
         var output = new StringWriter();
         Assert.Equal(0, CommandLine.Run(["simulate", "--trials", "4", "--output", _folder["sim"]], output, new StringWriter()));
-        // 4 trials allow 4! = 24 orders, fewer than the plan's 1000 surrogates; the plan's 'surrogates' is on line 19.
-        Refused(Path.Combine(_folder["sim"], "plan.yaml"), "plan.yaml, line 19: surrogates:", "condition 'tone' has 4 trials", "at most 24 distinct trial orders", "1000 surrogates");
+        // 4 trials allow 4! = 24 orders, fewer than the plan's 2000 surrogates; the plan's 'surrogates' is on line 19.
+        Refused(Path.Combine(_folder["sim"], "plan.yaml"), "plan.yaml, line 19: surrogates:", "condition 'tone' has 4 trials", "at most 24 distinct trial orders", "2000 surrogates");
         Assert.False(Directory.Exists(Path.Combine(_folder["sim"], "results")));
         Assert.DoesNotContain(Directory.EnumerateFileSystemEntries(_folder["sim"]), e => Path.GetFileName(e).StartsWith('.'));
     }
@@ -115,7 +115,7 @@ public sealed class BadInputTests(SmallScenario scenario) : IClassFixture<SmallS
         // 7 trials per condition allow 7! = 5040 trial orders, enough for 4000 surrogates, but the 14 pooled trials
         // split into two groups of 7 only C(14, 7) = 3432 ways, fewer than the 4000 label permutations asked.
         string plan = Path.Combine(_folder["sim"], "plan.yaml");
-        File.WriteAllText(plan, File.ReadAllText(plan).Replace("surrogates: 1000", "surrogates: 4000"));
+        File.WriteAllText(plan, File.ReadAllText(plan).Replace("surrogates: 2000", "surrogates: 4000"));
         Refused(plan, "plan.yaml, line 6: contrasts:", "tone-vs-light", "at most 3432 distinct splits", "4000 surrogates");
         Assert.False(Directory.Exists(Path.Combine(_folder["sim"], "results")));
     }

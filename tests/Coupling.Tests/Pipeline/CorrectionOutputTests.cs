@@ -44,9 +44,11 @@ public sealed class CorrectionOutputTests
         Assert.Contains("plv", ab[4].Split(','));
         Assert.InRange(Math.Abs(double.Parse(ab[6], System.Globalization.CultureInfo.InvariantCulture)), 0, 10);
 
-        string report = File.ReadAllText(Path.Combine(outcome.OutputFolder, "report.md"));
+        string report = System.Net.WebUtility.HtmlDecode(File.ReadAllText(Path.Combine(outcome.OutputFolder, "report.html")));
         Assert.Contains("family-wise error at alpha = 0.05 by the maximum over pairs", report);
         Assert.Contains("family: all channel pairs of one condition x band x measure", report);
+        // The methods paragraph names the correction's published source (Nichols & Holmes 2002, Hum Brain Mapp 15:1-25).
+        Assert.Contains("Nichols & Holmes 2002", report);
         var manifest = JsonNode.Parse(File.ReadAllText(Path.Combine(outcome.OutputFolder, "manifest.json")))!;
         var correction = manifest["extra"]!["correction"]!;
         Assert.Equal("max-statistic", (string?)correction["method"]);
@@ -62,9 +64,10 @@ public sealed class CorrectionOutputTests
         string plan = Path.Combine(folder.Path, "plan.yaml");
         File.WriteAllText(plan, SmallStudy.PlanText(surrogates: 19) + "\ncorrection: { method: network-based, alpha: 0.05, threshold: 3 }\n");
         var outcome = AnalysisRunner.Run(PlanReader.Read(plan));
-        string report = File.ReadAllText(Path.Combine(outcome.OutputFolder, "report.md"));
-        Assert.Contains("## Network components", report);
-        Assert.Contains("| go / alpha / plv | 1 |", report);
+        string report = System.Net.WebUtility.HtmlDecode(File.ReadAllText(Path.Combine(outcome.OutputFolder, "report.html")));
+        Assert.Contains("<h2>Network components</h2>", report);
+        string components = report[report.IndexOf("<h2>Network components</h2>", StringComparison.Ordinal)..];
+        Assert.Contains("go / alpha / plv", components[..components.IndexOf("</section>", StringComparison.Ordinal)]);
         var rows = File.ReadAllLines(Path.Combine(outcome.OutputFolder, "edges.tsv")).Select(l => l.Split('\t')).ToArray();
         int component = rows[0].ToList().IndexOf("component");
         Assert.Equal("1", rows.Skip(1).First(r => r[2] == "plv")[component]);

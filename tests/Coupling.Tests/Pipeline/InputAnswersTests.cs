@@ -115,7 +115,8 @@ public sealed class InputAnswersTests : IDisposable
     {
         SmallStudy.WriteRecording(_folder.Path);
         // The window is 0.5 s: 4 Hz completes 2 cycles in it, 8 Hz completes 4.
-        File.WriteAllText(_folder["plan.yaml"], SmallStudy.PlanText(surrogates: 200, bands: "{ slow: [4, 7], alpha: [8, 12] }"));
+        // 239 surrogates: enough for the two-sided aec test of 6 pairs (2/(M+1) <= 0.05/6), so no surrogate-count warning.
+        File.WriteAllText(_folder["plan.yaml"], SmallStudy.PlanText(surrogates: 239, bands: "{ slow: [4, 7], alpha: [8, 12] }"));
         var outcome = AnalysisRunner.Run(PlanReader.Read(_folder["plan.yaml"]));
         string w = Assert.Single(outcome.Warnings);
         Assert.Contains("Band 'slow' (4-7 Hz): the 0.5 s analysis window holds only 2 cycles of 4 Hz, fewer than 3", w);
@@ -135,9 +136,13 @@ public sealed class InputAnswersTests : IDisposable
             "recording: epochs.npy\nsample_rate: 100\nepochs: { first_sample_time: -0.5, labels: labels.txt, channel_labels: [X, Y] }\n" +
             "conditions: { a: [a] }\ntrial: { start: -0.5, end: 0.5 }\nwindow: { start: -0.2, end: 0.4 }\nbands: { theta: [5, 8] }\n" +
             "decomposition: { method: fir-hilbert, transition: 1 }\nmeasures: [plv]\nsurrogates: 0\nseed: 1\noutput: results\nfigures: false\n");
-        var outcome = AnalysisRunner.Run(PlanReader.Read(_folder["plan.yaml"]));
-        Assert.Contains(outcome.Warnings, w => w.StartsWith("Band 'theta' (5-8 Hz): the filter is", StringComparison.Ordinal)
+        // The warning comes first; then the run is refused, because the filter's edge effects from the zeros past the
+        // epochs would reach into the analysis window.
+        var warnings = new List<string>();
+        var error = Assert.Throws<InputException>(() => AnalysisRunner.Run(PlanReader.Read(_folder["plan.yaml"]), onWarning: warnings.Add));
+        Assert.Contains(warnings, w => w.StartsWith("Band 'theta' (5-8 Hz): the filter is", StringComparison.Ordinal)
             && w.Contains("longer than the 100-sample epochs", StringComparison.Ordinal));
+        Assert.Contains("band isolation reaches", error.Message);
     }
 
     [Fact]
@@ -150,7 +155,7 @@ public sealed class InputAnswersTests : IDisposable
         var bytes = File.ReadAllBytes(edf)[..(int)keep];
         File.WriteAllBytes(edf, bytes);
         string plan = Path.Combine(_folder["sim"], "plan.yaml");
-        File.WriteAllText(plan, File.ReadAllText(plan).Replace("surrogates: 1000", "surrogates: 0").Replace("figures: true", "figures: false")
+        File.WriteAllText(plan, File.ReadAllText(plan).Replace("surrogates: 2000", "surrogates: 0").Replace("figures: true", "figures: false")
             .Replace("measures: [plv, ppc, pli, wpli, wpli-debiased, coherence, imag-coherency, aec, aec-orth]", "measures: [plv]"));
         var (code, _, err) = Cli("run", plan);
         Assert.Equal(2, code);

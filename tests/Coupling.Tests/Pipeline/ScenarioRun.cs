@@ -5,9 +5,9 @@ using Coupling.Simulation;
 namespace Coupling.Tests.Pipeline;
 
 /// <summary>
-/// The simulated demo scenario written to files and analysed once by the whole pipeline, at the default 1000
-/// surrogates: with 45 pairs the smallest possible p, 1/(M + 1), must pass the Benjamini-Hochberg step
-/// 0.05/45 (Benjamini &amp; Hochberg 1995, J. R. Stat. Soc. B 57:289), which needs M >= 900.
+/// The simulated demo scenario written to files and analysed once by the whole pipeline, at the default 2000
+/// surrogates: with 45 pairs the smallest possible two-sided p, 2/(M + 1), must pass the Benjamini-Hochberg step
+/// 0.05/45 (Benjamini &amp; Hochberg 1995, J. R. Stat. Soc. B 57:289), which needs M >= 1799.
 /// </summary>
 public sealed class ScenarioRun : IDisposable
 {

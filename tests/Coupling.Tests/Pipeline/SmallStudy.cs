@@ -5,7 +5,7 @@ namespace Coupling.Tests.Pipeline;
 
 /// <summary>
 /// A small CSV study written into a folder: <c>rec.csv</c> (a column per channel, independent Gaussian noise plus a
-/// shared 10 Hz source on channels A and B), <c>rec_events.tsv</c> and <c>plan.yaml</c>. Fast to analyse: a few
+/// shared 10 Hz source on channels A and B, not locked to the events), <c>rec_events.tsv</c> and <c>plan.yaml</c>. Fast to analyse: a few
 /// channels, 20 trials of one condition, a short span.
 /// </summary>
 internal static class SmallStudy
@@ -26,7 +26,9 @@ internal static class SmallStudy
         double phase = 0;
         for (int s = 0; s < samples; s++)
         {
-            phase += 2 * Math.PI * (10 + 0.5 * Gauss()) / Rate;
+            // The frequency wanders enough (sd 3 Hz per sample) that the phase forgets itself between onsets 1.5 s
+            // apart: the source is coupling between A and B, not a response locked to the events.
+            phase += 2 * Math.PI * (10 + 3 * Gauss()) / Rate;
             double shared = 2 * Math.Sin(phase);
             for (int c = 0; c < Channels.Length; c++)
             {

@@ -82,7 +82,9 @@ public sealed class UnusableDataTests : IDisposable
         File.WriteAllText(_folder["labels.txt"], string.Concat(Enumerable.Range(0, 12).Select(e => e % 2 == 0 ? "a\n" : "b\n")));
         File.WriteAllText(_folder["plan.yaml"],
             "recording: epochs.npy\nsample_rate: 100\nepochs: { first_sample_time: -0.5, labels: labels.txt, channel_labels: [X, Y] }\n" +
-            "conditions: { a: [a], b: [b] }\ntrial: { start: -0.5, end: 0.5 }\nwindow: { start: -0.2, end: 0.4 }\nbands: { alpha: [8, 12] }\n" +
+            "conditions: { a: [a], b: [b] }\ntrial: { start: -0.5, end: 0.5 }\nwindow: { start: -0.2, end: 0.2 }\nbands: { alpha: [8, 12] }\n" +
+            // A short wavelet (reach 0.24 s) keeps band isolation's edge effects from the ends of the 1 s epochs out of the window.
+            "decomposition: { method: morlet, cycles: 3 }\n" +
             "measures: [plv]\nsurrogates: 0\nseed: 1\noutput: results\nfigures: false\nunusable_data: drop-trials\n");
         var outcome = AnalysisRunner.Run(PlanReader.Read(_folder["plan.yaml"]));
         Assert.Equal([6, 5], outcome.Conditions.Select(c => c.Trials));

@@ -93,11 +93,12 @@ public class ConditionContrastTests
                 var v = stored.Select(s => s[k][p]).ToArray();
                 double mean = v.Average();
                 double sd = Math.Sqrt(v.Sum(x => (x - mean) * (x - mean)) / (draws - 1));
-                int exceed = v.Count(x => Math.Abs(x) >= Math.Abs(delta));
+                // Two-sided against the null itself: twice the smaller one-sided p (Kulinskaya 2008, arXiv:0810.2124).
+                int exceed = Math.Min(v.Count(x => x >= delta), v.Count(x => x <= delta));
                 Assert.Equal(mean, results[k].NullMean[p], 1e-12);
                 Assert.Equal(sd, results[k].NullSd[p], 1e-12);
                 Assert.Equal(exceed, results[k].Exceedances[p]);
-                Assert.Equal((exceed + 1.0) / (draws + 1.0), results[k].P[p]);
+                Assert.Equal(Math.Min(1, 2 * (exceed + 1.0) / (draws + 1.0)), results[k].P[p], 1e-15);
             }
     }
 
@@ -106,7 +107,8 @@ public class ConditionContrastTests
     {
         // In A, channel 1 is channel 0 lagged by 0.7 rad plus a little noise (phase and envelope change from trial to
         // trial); in B the channels are independent. Any reassignment mixes coupled and independent trials in both
-        // groups and shrinks |Δ|, so no draw reaches the observed one: b = 0, p = 1/(M+1) (Phipson and Smyth 2010).
+        // groups and shrinks |Δ|, so no draw reaches the observed one on its side: b = 0, and the two-sided p is twice
+        // the one-sided 1/(M+1) (Phipson and Smyth 2010; Kulinskaya 2008, arXiv:0810.2124).
         const int trials = 12, times = 30, draws = 99;
         var random = new Random(61);
         var source = TestSignals.Random(1, trials, times, seed: 62);
@@ -125,7 +127,7 @@ public class ConditionContrastTests
         var results = ConditionContrast.Run(a, b, Every, draws, seed: 3, "x");
         int pair = PairIndex.Of(0, 1, 3);
         foreach (var r in results)
-            Assert.True(r.P[pair] == 1.0 / (draws + 1), $"{MeasureCatalog.Key(r.Measure)}: p = {r.P[pair]}");
+            Assert.True(r.P[pair] == 2.0 / (draws + 1), $"{MeasureCatalog.Key(r.Measure)}: p = {r.P[pair]}");
     }
 
     [Fact]

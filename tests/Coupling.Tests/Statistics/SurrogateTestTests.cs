@@ -76,13 +76,21 @@ public class SurrogateTestTests
                 var v = stored.Select(s => s[k * pairs + p]).ToArray();
                 double mean = v.Average();
                 double sd = Math.Sqrt(v.Sum(x => (x - mean) * (x - mean)) / (draws - 1));
-                double observed = MeasureCatalog.TestStatistic(Every[k], results[k].Observed[p]);
-                int b = v.Count(x => MeasureCatalog.TestStatistic(Every[k], x) >= observed);
+                // Tails: upper b = draws at or above the observed value; two-sided (signed measures) twice the smaller
+                // one-sided p (Kulinskaya 2008, arXiv:0810.2124). z: the normal deviate of the observed value's
+                // mid-rank, Φ⁻¹((below + ties/2 + 1/2)/(M+1)) (Hazen's plotting position; MathNet.Numerics Normal.InvCDF).
+                double observed = results[k].Observed[p];
+                int upper = v.Count(x => x >= observed), lower = v.Count(x => x <= observed);
+                int below = v.Count(x => x < observed), ties = v.Count(x => x == observed);
+                bool two = MeasureCatalog.TailOf(Every[k]) == TestTail.TwoSided;
+                int b = two ? Math.Min(upper, lower) : upper;
+                double expectedP = two ? Math.Min(1, 2 * (b + 1.0) / (draws + 1.0)) : (b + 1.0) / (draws + 1.0);
                 Assert.Equal(mean, results[k].NullMean[p], 1e-13);
                 Assert.Equal(sd, results[k].NullSd[p], 1e-13);
                 Assert.Equal(b, results[k].Exceedances[p]);
-                Assert.Equal((b + 1.0) / (draws + 1.0), results[k].P[p]);
-                Assert.Equal((results[k].Observed[p] - mean) / sd, results[k].Z[p], 1e-9);
+                Assert.Equal(expectedP, results[k].P[p], 1e-15);
+                double z = MathNet.Numerics.Distributions.Normal.InvCDF(0, 1, (below + 0.5 * ties + 0.5) / (draws + 1.0));
+                Assert.Equal(z, results[k].Z[p], 1e-12);
             }
     }
 
@@ -117,12 +125,17 @@ public class SurrogateTestTests
         });
         var results = SurrogateTest.Run(set, Every, draws, seed: 3, "x");
         int pair = PairIndex.Of(0, 1, 3);
+        // The two-sided (signed) measures get twice that. z is the rank-based deviate of the most extreme rank,
+        // ±Φ⁻¹(1 − 1/(2(M+1))) = ±2.5758 for M = 99 (standard normal quantile of 0.995, statistical tables).
         foreach (var result in results)
         {
-            Assert.True(result.P[pair] == 1.0 / (draws + 1), $"{MeasureCatalog.Key(result.Measure)}: p = {result.P[pair]}");
-            // z is signed: imaginary coherency of a lag of b behind a is negative.
-            Assert.True(Math.Abs(result.Z[pair]) > 3, $"{MeasureCatalog.Key(result.Measure)}: z = {result.Z[pair]}");
+            bool two = MeasureCatalog.TailOf(result.Measure) == TestTail.TwoSided;
+            double smallest = (two ? 2.0 : 1.0) / (draws + 1);
+            Assert.True(result.P[pair] == smallest, $"{MeasureCatalog.Key(result.Measure)}: p = {result.P[pair]}");
+            // z is signed: imaginary coherency of a lag of b behind a is negative (observed below every draw).
+            Assert.Equal(2.5758, Math.Abs(result.Z[pair]), 4);
         }
+        Assert.True(results[Array.IndexOf(Every, Measure.ImagCoherency)].Z[pair] < 0);
     }
 
     [Fact]

@@ -45,13 +45,15 @@ public sealed class EpochTrialsTests
     }
 
     [Fact]
-    public void Padding_past_the_epoch_ends_is_filled_by_even_reflection()
+    public void Padding_past_the_epoch_ends_is_filled_with_zeros_and_counted()
     {
-        // Span -0.2..0.3 s is the whole epoch; 3 samples of padding reflect about samples 0 and 49 (x[-k] = x[k]).
+        // Span -0.2..0.3 s is the whole epoch; 3 samples of padding past each end hold zeros.
         var set = Select(new TimeRange(-0.2, 0.3), pad: 3, condition: "stop");
         Assert.Equal(56, set.SampleCount);
-        double[] expected = [.. new[] { 3, 2, 1 }, .. Enumerable.Range(0, 50), .. new[] { 48, 47, 46 }];
-        Assert.Equal(expected.Select(s => 10000.0 * 3 + 1000 + s), set.Trial(1, 1).ToArray());
+        double[] expected = [0, 0, 0, .. Enumerable.Range(0, 50).Select(s => 10000.0 * 3 + 1000 + s), 0, 0, 0];
+        Assert.Equal(expected, set.Trial(1, 1).ToArray());
+        Assert.Equal(3, set.ZerosBefore);
+        Assert.Equal(3, set.ZerosAfter);
     }
 
     [Fact]

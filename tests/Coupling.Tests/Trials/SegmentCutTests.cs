@@ -7,8 +7,7 @@ namespace Coupling.Tests.Trials;
 
 /// <summary>
 /// Trials cut from a file read a segment at a time against trials cut from the same file read whole, and the
-/// multi-channel reflected read against the per-channel reflected copy (even reflection x[-k] = x[k], common practice,
-/// as in scipy's "reflect" padding).
+/// multi-channel padded read against the per-channel padded copy (zeros past either end).
 /// </summary>
 public sealed class SegmentCutTests
 {
@@ -26,7 +25,7 @@ public sealed class SegmentCutTests
     {
         using var tmp = new TempFolder();
         // 250 Hz, 2600 samples: 10.4 s, written in records the writer chooses (a divisor closest to 1 s).
-        // Events near both ends make padding reflect there; two run past the ends and are dropped.
+        // Events near both ends make padding run past them (zeros there); two spans run past the ends and are dropped.
         RecordingEvent[] events =
         [
             new(0.05, 0, "cue"), new(0.3, 0, "cue"), new(2.0, 0, "probe"), new(3.77, 0, "cue"), new(5.5, 0, "probe"),
@@ -54,20 +53,25 @@ public sealed class SegmentCutTests
     }
 
     [Fact]
-    public void The_reflected_read_of_all_channels_equals_the_reflected_copy_of_each()
+    public void The_padded_read_of_all_channels_equals_the_padded_copy_of_each_and_counts_the_zeros()
     {
         var rec = Simulated(100, 37, []);
         double[]? scratch = null;
-        // Starts before, inside and after the samples; lengths up to several times the recording, so reflection wraps.
+        // Starts before, inside and after the samples; lengths up to several times the recording.
         foreach (int start in new[] { -80, -36, -5, 0, 3, 30, 36, 40 })
             foreach (int length in new[] { 1, 7, 37, 50, 150 })
             {
                 var target = new double[rec.Channels.Count * length];
-                TrialCutter.ReadReflected(rec, start, length, target, ref scratch);
+                var zeros = TrialCutter.ReadPadded(rec, start, length, target, ref scratch);
+                int before = Enumerable.Range(start, length).Count(i => i < 0);
+                int after = Enumerable.Range(start, length).Count(i => i >= 37);
+                Assert.Equal((before, after), zeros);
                 for (int c = 0; c < rec.Channels.Count; c++)
                 {
-                    var expected = new double[length];
-                    TrialCutter.CopyReflected(rec.Samples[c], start, expected);
+                    var expected = Enumerable.Range(start, length).Select(i => i < 0 || i >= 37 ? 0.0 : rec.Samples[c][i]).ToArray();
+                    var copied = new double[length];
+                    Assert.Equal((before, after), TrialCutter.CopyPadded(rec.Samples[c], start, copied));
+                    Assert.Equal(expected, copied);
                     Assert.Equal(expected, target.AsSpan(c * length, length).ToArray());
                 }
             }

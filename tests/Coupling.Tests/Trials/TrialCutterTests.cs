@@ -23,14 +23,12 @@ public sealed class TrialCutterTests
             events.OrderBy(e => e.Onset).Select(e => new RecordingEvent(e.Onset, 0, e.Label)).ToArray());
     }
 
-    /// <summary>The sample the cutter should hold at index i of a padded trial whose padded start is <paramref name="start"/>,
-    /// with even reflection about the end samples (x[-k] = x[k], x[n-1+k] = x[n-1-k]; common practice, as in scipy's "reflect" padding).</summary>
+    /// <summary>The sample the cutter should hold at index i of a padded trial whose padded start is <paramref name="start"/>:
+    /// the recording's sample, or 0 past either end (zeros carry no time-reversed data).</summary>
     private static double Expected(int channel, int start, int i)
     {
         int s = start + i;
-        if (s < 0) s = -s;
-        if (s > Samples - 1) s = 2 * (Samples - 1) - s;
-        return 1000.0 * channel + s;
+        return s < 0 || s > Samples - 1 ? 0.0 : 1000.0 * channel + s;
     }
 
     [Fact]
@@ -56,7 +54,7 @@ public sealed class TrialCutterTests
     }
 
     [Fact]
-    public void Padding_past_either_end_of_the_recording_is_filled_by_even_reflection()
+    public void Padding_past_either_end_of_the_recording_is_filled_with_zeros_and_counted()
     {
         // Onset 0.5 s: span starts at sample 0 exactly; onset 9.0 s: span ends at the last sample exactly.
         var set = TrialCutter.Cut(IndexRecording((0.5, "cue"), (9.0, "cue")), Cue, Span, Pad);
@@ -68,10 +66,15 @@ public sealed class TrialCutterTests
                 var x = set.Trial(n, c);
                 for (int i = 0; i < x.Length; i++) Assert.Equal(Expected(c, paddedStarts[n], i), x[i]);
             }
-        // Spelled out at the start: 10, 9, ..., 1, then 0, 1, 2 ...
-        Assert.Equal([10.0, 9, 8, 7, 6, 5, 4, 3, 2, 1, 0, 1, 2], set.Trial(0, 0)[..13].ToArray());
-        // and at the end: ..., 998, 999, then 998, 997, ...
-        Assert.Equal([998.0, 999, 998, 997], set.Trial(1, 0).Slice(Pad + Length - 2, 4).ToArray());
+        // Spelled out at the start: Pad zeros, then 0, 1, 2 ...; and at the end: ..., 998, 999, then zeros.
+        Assert.Equal([.. Enumerable.Repeat(0.0, Pad), 0, 1, 2], set.Trial(0, 0)[..(Pad + 3)].ToArray());
+        Assert.Equal([998.0, 999, 0, 0], set.Trial(1, 0).Slice(Pad + Length - 2, 4).ToArray());
+        Assert.Equal(Pad, set.ZerosBefore);
+        Assert.Equal(Pad, set.ZerosAfter);
+        // Trials padded with recorded data count no zeros.
+        var inside = TrialCutter.Cut(IndexRecording((2.0, "cue"), (5.0, "cue")), Cue, Span, Pad);
+        Assert.Equal(0, inside.ZerosBefore);
+        Assert.Equal(0, inside.ZerosAfter);
     }
 
     [Fact]
