@@ -55,7 +55,8 @@ public static class PlanCheck
             .ToArray();
         int pairs = PairIndex.Count(input.Channels.Count);
         return new PlanPreview(plan.Source, plan.Recording, input.SampleRate, input.Channels.Select(c => c.Label).ToArray(), conditions, bands,
-            units, kept.KeptUnits(plan), plan.Surrogates, pairs, SurrogateFloor.Of(plan.Correction, plan.Q, pairs).Needed, plan.Output,
+            units, kept.KeptUnits(plan), plan.Surrogates, pairs, SurrogateFloor.Of(plan.Correction, plan.Q, pairs,
+                twoSidedOnly: plan.Measures.All(m => MeasureCatalog.TailOf(m) == TestTail.TwoSided)).Needed, plan.Output,
             BandWarnings.For(plan, decompositions, input.SampleRate, input.EpochSamples));
     }
 

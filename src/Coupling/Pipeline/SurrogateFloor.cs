@@ -6,24 +6,27 @@ namespace Coupling.Pipeline;
 /// How many surrogates a single coupled pair needs to pass a false discovery rate correction, given that counted p-values
 /// cannot go below 1/(M + 1): Benjamini-Hochberg passes one pair alone when 1/(M + 1) ≤ q/m, Benjamini-Yekutieli when
 /// 1/(M + 1) ≤ q/(m·c(m)), c(m) = Σ 1/i. The family-wise corrections and no correction need only 1/(M + 1) ≤ alpha; with
-/// the Pareto tail, p can go below the floor, so no count is required.
+/// the Pareto tail, p can go below the floor, so no count is required. When every test of the table is two-sided against
+/// its null (<see cref="Measures.TestTail.TwoSided"/>), the floor is 2/(M + 1) and every count doubles.
 /// </summary>
 /// <param name="Applies">Whether the false-discovery-rate floor check applies (an FDR method with counted p-values).</param>
-/// <param name="Multiplier">1 for Benjamini-Hochberg, c(m) for Benjamini-Yekutieli.</param>
+/// <param name="Multiplier">1 for Benjamini-Hochberg, c(m) for Benjamini-Yekutieli; times 2 for two-sided tests.</param>
 /// <param name="Needed">The smallest M for which one pair can pass on its own.</param>
-internal sealed record SurrogateFloor(bool Applies, double Multiplier, int Needed)
+/// <param name="Sides">1 when the smallest attainable p is 1/(M + 1), 2 when every test is two-sided (2/(M + 1)).</param>
+internal sealed record SurrogateFloor(bool Applies, double Multiplier, int Needed, int Sides = 1)
 {
-    public static SurrogateFloor Of(CorrectionSpec correction, double level, int pairs)
+    public static SurrogateFloor Of(CorrectionSpec correction, double level, int pairs, bool twoSidedOnly = false)
     {
-        if (correction.ParetoTail) return new SurrogateFloor(false, 1, 1);
+        int sides = twoSidedOnly ? 2 : 1;
+        if (correction.ParetoTail) return new SurrogateFloor(false, 1, 1, sides);
         if (!CorrectionSpec.ControlsFalseDiscoveries(correction.Method))
-            return new SurrogateFloor(false, 1, (int)Math.Ceiling(1 / level) - 1);
+            return new SurrogateFloor(false, sides, (int)Math.Ceiling(sides / level) - 1, sides);
         double c = 1;
         if (correction.Method == CorrectionMethod.BenjaminiYekutieli)
         {
             c = 0;
             for (int i = pairs; i >= 1; i--) c += 1.0 / i;
         }
-        return new SurrogateFloor(true, c, (int)Math.Min(int.MaxValue, Math.Ceiling(c * pairs / level) - 1));
+        return new SurrogateFloor(true, sides * c, (int)Math.Min(int.MaxValue, Math.Ceiling(sides * c * pairs / level) - 1), sides);
     }
 }

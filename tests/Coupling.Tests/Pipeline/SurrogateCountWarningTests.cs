@@ -42,6 +42,23 @@ public sealed class SurrogateCountWarningTests
     }
 
     [Fact]
+    public void Two_sided_tests_alone_halve_the_reach_of_the_surrogates()
+    {
+        // Two-sided p = min(1, 2·min(tail counts)) cannot go below 2/(M+1) (common practice for permutation tests), so
+        // one pair among 6 at q = 0.05 needs 2/(M+1) ≤ 0.05/6, i.e. M ≥ 239; 119 draws, enough for one-sided tests, are not.
+        using var folder = new TempFolder();
+        SmallStudy.WriteRecording(folder.Path);
+        string plan = Path.Combine(folder.Path, "plan.yaml");
+        string text = SmallStudy.PlanText(surrogates: 119);
+        int at = text.IndexOf("measures:", StringComparison.Ordinal);
+        int end = text.IndexOf('\n', at);
+        File.WriteAllText(plan, text[..at] + "measures: [imag-coherency, aec]" + text[end..]);
+        string warning = Assert.Single(AnalysisRunner.Run(PlanReader.Read(plan)).Warnings);
+        Assert.Contains("smallest attainable p is 2/120 (two-sided tests)", warning);
+        Assert.Contains("at least 239 surrogates", warning);
+    }
+
+    [Fact]
     public void Enough_surrogates_give_no_warning()
     {
         using var folder = new TempFolder();
