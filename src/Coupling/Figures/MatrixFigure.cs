@@ -96,16 +96,16 @@ public static class MatrixFigure
         return plot;
     }
 
+    /// <summary>A dark line with a thinner light line centred on it, around the cell at (x, y): visible on any colour.</summary>
     private static void Outline(Plot plot, double x, double y, float width)
     {
-        const double outer = 0.46, inner = 0.46;
-        var dark = plot.Add.Rectangle(x - outer, x + outer, y - outer, y + outer);
-        dark.FillStyle.Color = Colors.Transparent;
-        dark.LineStyle.Color = FigureStyle.Ink;
-        dark.LineStyle.Width = 2 * width;
-        var light = plot.Add.Rectangle(x - inner, x + inner, y - inner, y + inner);
-        light.FillStyle.Color = Colors.Transparent;
-        light.LineStyle.Color = Colors.White;
-        light.LineStyle.Width = width * 0.75f;
+        const double half = 0.46; // just inside the cell's half-width of 0.5
+        foreach (var (colour, lineWidth) in new[] { (FigureStyle.Ink, 2 * width), (Colors.White, width * 0.75f) })
+        {
+            var line = plot.Add.Rectangle(x - half, x + half, y - half, y + half);
+            line.FillStyle.Color = Colors.Transparent;
+            line.LineStyle.Color = colour;
+            line.LineStyle.Width = lineWidth;
+        }
     }
 }
