@@ -161,7 +161,7 @@ public static class PairwiseKernels
         bool prefetch = t + 1 < tables.Times;
         if (w.NeedsPhase)
         {
-            if (prefetch)
+            if (prefetch && !WideTileKernels.Enabled)
             {
                 tables.UnitRe!.Prefetch(timeBase + sliceLength, sliceLength);
                 tables.UnitIm!.Prefetch(timeBase + sliceLength, sliceLength);
@@ -173,6 +173,31 @@ public static class PairwiseKernels
             var ppcScale = Vector256.Create(trials < 2 ? double.NaN : 1 / (count * (count - 1)));
             ref double re = ref tables.UnitRe!.Start;
             ref double im = ref tables.UnitIm!.Start;
+            if (WideTileKernels.Enabled)
+            {
+                Wide16 wide = default;
+                var inverseCount8 = Vector512.Create(1 / count);
+                var countVector8 = Vector512.Create(count);
+                var ppcScale8 = Vector512.Create(trials < 2 ? double.NaN : 1 / (count * (count - 1)));
+                for (int b0 = 0; b0 < channels; b0 += WideTileKernels.Columns)
+                    for (int a0 = 0; a0 < Math.Min(b0 + WideTileKernels.Columns, channels) - 1; a0 += WideTileKernels.ComplexRows)
+                    {
+                        // The diagonal tile of each column block reads every row's line of those columns in trial order: it
+                        // asks for the same lines of the next time point (see the tile).
+                        nint ahead = prefetch && a0 == b0 ? (nint)sliceLength : 0;
+                        WideTileKernels.ComplexMagnitudeTile(ref re, ref im, timeBase, stride, permutation, a0, b0, ahead, ref wide);
+                        for (int r = 0; r < WideTileKernels.ComplexRows; r++)
+                        {
+                            var real = wide[r];
+                            var imaginary = wide[8 + r];
+                            var squared = real * real + imaginary * imaginary;
+                            nuint offset = (nuint)((a0 + r) * stride + b0);
+                            if (plv is not null) AddTo(plv, offset, Vector512.Sqrt(squared) * inverseCount8);
+                            if (ppc is not null) AddTo(ppc, offset, (squared - countVector8) * ppcScale8);
+                        }
+                    }
+            }
+            else
             for (int b0 = 0; b0 < channels; b0 += TileKernels.ComplexColumns)
                 for (int a0 = 0; a0 < Math.Min(b0 + TileKernels.ComplexColumns, channels) - 1; a0 += TileKernels.ComplexRows)
                 {
@@ -192,7 +217,7 @@ public static class PairwiseKernels
         }
         if (w.NeedsCross)
         {
-            if (prefetch)
+            if (prefetch && !WideTileKernels.Enabled)
             {
                 tables.RawRe!.Prefetch(timeBase + sliceLength, sliceLength);
                 tables.RawIm!.Prefetch(timeBase + sliceLength, sliceLength);
@@ -203,7 +228,27 @@ public static class PairwiseKernels
             ref double im = ref tables.RawIm!.Start;
             ref double weight = ref tables.InverseRootPower!.Start;
             nint weightBase = (nint)t * stride;
-            if (coherence is not null || imag is not null)
+            if ((coherence is not null || imag is not null) && WideTileKernels.Enabled)
+            {
+                Wide24 wide = default;
+                for (int b0 = 0; b0 < channels; b0 += WideTileKernels.Columns)
+                    for (int a0 = 0; a0 < Math.Min(b0 + WideTileKernels.Columns, channels) - 1; a0 += WideTileKernels.ComplexRows)
+                    {
+                        nint ahead = prefetch && a0 == b0 ? (nint)sliceLength : 0;
+                        WideTileKernels.ComplexTile(ref re, ref im, timeBase, stride, permutation, a0, b0, ahead, ref wide);
+                        var weightB = Vector512.LoadUnsafe(ref weight, (nuint)(weightBase + b0));
+                        for (int r = 0; r < WideTileKernels.ComplexRows; r++)
+                        {
+                            var real = wide[r];
+                            var imaginary = wide[8 + r] - wide[16 + r];
+                            var both = Vector512.Create(Unsafe.Add(ref weight, weightBase + a0 + r)) * weightB;
+                            nuint offset = (nuint)((a0 + r) * stride + b0);
+                            if (coherence is not null) AddTo(coherence, offset, (real * real + imaginary * imaginary) * (both * both));
+                            if (imag is not null) AddTo(imag, offset, imaginary * both);
+                        }
+                    }
+            }
+            else if (coherence is not null || imag is not null)
                 for (int b0 = 0; b0 < channels; b0 += TileKernels.ComplexColumns)
                     for (int a0 = 0; a0 < Math.Min(b0 + TileKernels.ComplexColumns, channels) - 1; a0 += TileKernels.ComplexRows)
                     {
@@ -224,21 +269,21 @@ public static class PairwiseKernels
                         }
                     }
             if (w.NeedsLag)
-                AddLag(w, ref re, ref im, timeBase, permutation);
+                AddLag(w, ref re, ref im, timeBase, permutation, prefetch ? (nint)sliceLength : 0);
         }
     }
 
-    private static void AddLag(PairwiseWorkspace w, ref double re, ref double im, long timeBase, ReadOnlySpan<int> permutation)
+    private static void AddLag(PairwiseWorkspace w, ref double re, ref double im, long timeBase, ReadOnlySpan<int> permutation, nint ahead)
     {
         bool signs = w.DenseOf(Measure.Pli) is not null, squares = w.DenseOf(Measure.WpliDebiased) is not null;
         bool sum = squares || w.DenseOf(Measure.Wpli) is not null;
-        if (squares) { if (signs) AddLag<LagAll>(w, ref re, ref im, timeBase, permutation); else AddLag<LagSumSquares>(w, ref re, ref im, timeBase, permutation); }
-        else if (sum) { if (signs) AddLag<LagSumSigns>(w, ref re, ref im, timeBase, permutation); else AddLag<LagSum>(w, ref re, ref im, timeBase, permutation); }
-        else AddLag<LagSigns>(w, ref re, ref im, timeBase, permutation);
+        if (squares) { if (signs) AddLag<LagAll>(w, ref re, ref im, timeBase, permutation, ahead); else AddLag<LagSumSquares>(w, ref re, ref im, timeBase, permutation, ahead); }
+        else if (sum) { if (signs) AddLag<LagSumSigns>(w, ref re, ref im, timeBase, permutation, ahead); else AddLag<LagSum>(w, ref re, ref im, timeBase, permutation, ahead); }
+        else AddLag<LagSigns>(w, ref re, ref im, timeBase, permutation, ahead);
     }
 
     /// <summary>The lag measures of one time point, with the tile forming only the sums they need.</summary>
-    private static void AddLag<TSums>(PairwiseWorkspace w, ref double re, ref double im, long timeBase, ReadOnlySpan<int> permutation)
+    private static void AddLag<TSums>(PairwiseWorkspace w, ref double re, ref double im, long timeBase, ReadOnlySpan<int> permutation, nint ahead)
         where TSums : struct, ILagSums
     {
         var tables = w.Tables;
@@ -246,6 +291,23 @@ public static class PairwiseKernels
         var pli = w.DenseOf(Measure.Pli);
         var wpli = w.DenseOf(Measure.Wpli);
         var debiased = w.DenseOf(Measure.WpliDebiased);
+        if (WideTileKernels.Enabled)
+        {
+            Wide16 wide = default;
+            for (int b0 = 0; b0 < channels; b0 += WideTileKernels.Columns)
+                for (int a0 = 0; a0 < Math.Min(b0 + WideTileKernels.Columns, channels) - 1; a0 += WideTileKernels.LagRows)
+                {
+                    WideTileKernels.LagTile<TSums>(ref re, ref im, timeBase, stride, permutation, a0, b0, a0 == b0 ? ahead : 0, ref wide);
+                    for (int r = 0; r < WideTileKernels.LagRows; r++)
+                    {
+                        // The finishing is per tile, not per trial: two halves through the four-wide form cost little.
+                        nuint offset = (nuint)((a0 + r) * stride + b0);
+                        AddLagSums(pli, wpli, debiased, offset, wide[r].GetLower(), wide[4 + r].GetLower(), wide[8 + r].GetLower(), wide[12 + r].GetLower());
+                        AddLagSums(pli, wpli, debiased, offset + 4, wide[r].GetUpper(), wide[4 + r].GetUpper(), wide[8 + r].GetUpper(), wide[12 + r].GetUpper());
+                    }
+                }
+            return;
+        }
         Vectors16 sums = default;
         for (int b0 = 0; b0 < channels; b0 += TileKernels.LagColumns)
             for (int a0 = 0; a0 < Math.Min(b0 + TileKernels.LagColumns, channels) - 1; a0 += TileKernels.LagRows)
@@ -254,30 +316,32 @@ public static class PairwiseKernels
                 for (int i = 0; i < 4; i++)
                 {
                     int r = i / 2, v = i % 2;
-                    var sum = sums[i];
-                    var absolute = sums[4 + i];
-                    var squares = sums[8 + i];
-                    var sign = sums[12 + i];
-                    nuint offset = (nuint)((a0 + r) * stride + b0 + 4 * v);
-                    // A NaN term makes the absolute sum NaN; then every lag measure is NaN. Where the absolute sum is 0
-                    // (no nonzero imaginary part) wPLI is 0, which is the absolute sum itself.
-                    // PLI: the whole-number sign count |Σ_n sign(Im X_n)| of this time point is added as it is, so
-                    // the sum over time points stays an exact integer (no 1/N rounding that depends on the order).
-                    if (pli is not null)
-                        AddTo(pli, offset, Vector256.ConditionalSelect(Vector256.Equals(absolute, absolute),
-                            Vector256.Abs(sign), absolute));
-                    if (wpli is not null)
-                        AddTo(wpli, offset, Vector256.ConditionalSelect(Vector256.GreaterThan(absolute, Vector256<double>.Zero),
-                            Vector256.Abs(sum) / absolute, absolute));
-                    if (debiased is not null)
-                    {
-                        var denominator = absolute * absolute - squares;
-                        AddTo(debiased, offset, Vector256.ConditionalSelect(Vector256.GreaterThan(denominator, Vector256<double>.Zero),
-                            (sum * sum - squares) / denominator,
-                            Vector256.ConditionalSelect(Vector256.Equals(denominator, denominator), Vector256<double>.Zero, denominator)));
-                    }
+                    AddLagSums(pli, wpli, debiased, (nuint)((a0 + r) * stride + b0 + 4 * v), sums[i], sums[4 + i], sums[8 + i], sums[12 + i]);
                 }
             }
+    }
+
+    /// <summary>
+    /// Adds one vector of pairs' lag measures of one time point from their sums: Σ Im X_n, Σ |Im X_n|, Σ (Im X_n)² and
+    /// Σ sign(Im X_n). A NaN term makes the absolute sum NaN; then every lag measure is NaN. Where the absolute sum is
+    /// 0 (no nonzero imaginary part) wPLI is 0, which is the absolute sum itself. PLI: the whole-number sign count
+    /// |Σ_n sign(Im X_n)| of this time point is added as it is, so the sum over time points stays an exact integer (no
+    /// 1/N rounding that depends on the order).
+    /// </summary>
+    private static void AddLagSums(AlignedArray? pli, AlignedArray? wpli, AlignedArray? debiased, nuint offset,
+        Vector256<double> sum, Vector256<double> absolute, Vector256<double> squares, Vector256<double> sign)
+    {
+        if (pli is not null)
+            AddTo(pli, offset, Vector256.ConditionalSelect(Vector256.Equals(absolute, absolute), Vector256.Abs(sign), absolute));
+        if (wpli is not null)
+            AddTo(wpli, offset, Vector256.ConditionalSelect(Vector256.GreaterThan(absolute, Vector256<double>.Zero), Vector256.Abs(sum) / absolute, absolute));
+        if (debiased is not null)
+        {
+            var denominator = absolute * absolute - squares;
+            AddTo(debiased, offset, Vector256.ConditionalSelect(Vector256.GreaterThan(denominator, Vector256<double>.Zero),
+                (sum * sum - squares) / denominator,
+                Vector256.ConditionalSelect(Vector256.Equals(denominator, denominator), Vector256<double>.Zero, denominator)));
+        }
     }
 
     /// <summary>Adds the Fisher-transformed per-trial correlations of trial <paramref name="trial"/> (channel a) with trial <paramref name="partner"/> (channel b).</summary>
@@ -346,6 +410,12 @@ public static class PairwiseKernels
     {
         ref double start = ref dense.Start;
         (Vector256.LoadUnsafe(ref start, offset) + value).StoreUnsafe(ref start, offset);
+    }
+
+    private static void AddTo(AlignedArray dense, nuint offset, Vector512<double> value)
+    {
+        ref double start = ref dense.Start;
+        (Vector512.LoadUnsafe(ref start, offset) + value).StoreUnsafe(ref start, offset);
     }
 
     /// <summary>
