@@ -100,17 +100,12 @@ public static class SpectrumRunner
         TrialSet a, TrialSet b, bool subtractEvoked, ulong seed, int workers, IProgress<RunProgress>? progress,
         CancellationToken cancellationToken)
     {
-        if (subtractEvoked)
-        {
-            EvokedRemoval.SubtractInPlace(a);
-            EvokedRemoval.SubtractInPlace(b);
-        }
         var cellsA = Build(spec, a, bins, workers);
         var cellsB = Build(spec, b, bins, workers);
         string stage = $"{test.ConditionA} vs {test.ConditionB}: cluster test, cells through {test.Draws} permutations";
         var cellProgress = progress is null ? null : new Progress<int>(done => progress.Report(new RunProgress(stage, done, cellsA.CellCount)));
         return TimeFrequencyClusterTest.Run(cellsA, cellsB, test.Measure, test.ConditionA, test.ConditionB, test.Draws, seed,
-            test.Threshold, workers > 0 ? workers : null, cancellationToken, cellProgress);
+            test.Threshold, workers > 0 ? workers : null, cancellationToken, cellProgress, subtractEvoked);
     }
 
     private static TimeFrequencyCells Build(SpectrumSpec spec, TrialSet trials, IReadOnlyList<TimeBin> bins, int workers) =>
