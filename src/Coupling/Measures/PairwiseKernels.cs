@@ -157,8 +157,15 @@ public static class PairwiseKernels
         double count = trials;
         var slot = w.Slot;
         Vectors24 sums = default;
+        long sliceLength = (long)trials * stride;
+        bool prefetch = t + 1 < tables.Times;
         if (w.NeedsPhase)
         {
+            if (prefetch)
+            {
+                tables.UnitRe!.Prefetch(timeBase + sliceLength, sliceLength);
+                tables.UnitIm!.Prefetch(timeBase + sliceLength, sliceLength);
+            }
             var plv = w.DenseOf(Measure.Plv);
             var ppc = w.DenseOf(Measure.Ppc);
             var inverseCount = Vector256.Create(1 / count);
@@ -169,13 +176,13 @@ public static class PairwiseKernels
             for (int b0 = 0; b0 < channels; b0 += TileKernels.ComplexColumns)
                 for (int a0 = 0; a0 < Math.Min(b0 + TileKernels.ComplexColumns, channels) - 1; a0 += TileKernels.ComplexRows)
                 {
-                    TileKernels.ComplexTile(ref re, ref im, timeBase, stride, permutation, a0, b0, ref sums);
+                    TileKernels.ComplexMagnitudeTile(ref re, ref im, timeBase, stride, permutation, a0, b0, ref sums);
                     for (int r = 0; r < TileKernels.ComplexRows; r++)
                         for (int v = 0; v < 2; v++)
                         {
                             int i = 2 * r + v;
                             var real = sums[i];
-                            var imaginary = sums[8 + i] - sums[16 + i];
+                            var imaginary = sums[8 + i];
                             var squared = real * real + imaginary * imaginary;
                             nuint offset = (nuint)((a0 + r) * stride + b0 + 4 * v);
                             if (plv is not null) AddTo(plv, offset, Vector256.Sqrt(squared) * inverseCount);
@@ -185,6 +192,11 @@ public static class PairwiseKernels
         }
         if (w.NeedsCross)
         {
+            if (prefetch)
+            {
+                tables.RawRe!.Prefetch(timeBase + sliceLength, sliceLength);
+                tables.RawIm!.Prefetch(timeBase + sliceLength, sliceLength);
+            }
             var coherence = w.DenseOf(Measure.Coherence);
             var imag = w.DenseOf(Measure.ImagCoherency);
             ref double re = ref tables.RawRe!.Start;

@@ -100,6 +100,86 @@ internal static class TileKernels
     }
 
     /// <summary>
+    /// One 4 x 8 tile of S_ab = Σ_n x_a,n · conj(y_b,π(n)) at one time point for measures that use |S_ab| only (PLV, PPC,
+    /// coherence): writes Re S into <paramref name="sums"/>[0..7] and Im S into [8..15] (row-major, two vectors per
+    /// row), with three real multiply-adds per complex term instead of four (Gauss's form of the complex product,
+    /// Knuth 1997, The Art of Computer Programming vol. 2, section 4.6.4): with g = Re x + Im x, f = Re y + Im y and
+    /// e = Re y − Im y, Re S = Σ Re y·g − Σ Im x·e and Im S = Σ Re y·g − Σ Re x·f. The cancellation in these
+    /// differences costs a few units of rounding of Σ |x|·|y|, not of |S|; a zero-lag copy therefore gets an Im S of
+    /// rounding size, not exactly 0, which is why measures that read Im S itself use <see cref="ComplexTile"/>.
+    /// </summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
+    public static void ComplexMagnitudeTile(ref double re, ref double im, long timeBase, int stride, ReadOnlySpan<int> permutation,
+        int a0, int b0, ref Vectors24 sums)
+    {
+        Vector256<double> k00 = default, m00 = default, h00 = default;
+        Vector256<double> k01 = default, m01 = default, h01 = default;
+        Vector256<double> k10 = default, m10 = default, h10 = default;
+        Vector256<double> k11 = default, m11 = default, h11 = default;
+        Vector256<double> k20 = default, m20 = default, h20 = default;
+        Vector256<double> k21 = default, m21 = default, h21 = default;
+        Vector256<double> k30 = default, m30 = default, h30 = default;
+        Vector256<double> k31 = default, m31 = default, h31 = default;
+        nint x = (nint)(timeBase + a0), yBase = (nint)(timeBase + b0);
+        for (int n = 0; n < permutation.Length; n++, x += stride)
+        {
+            nint y = yBase + (nint)permutation[n] * stride;
+            var yr0 = Vector256.LoadUnsafe(ref re, (nuint)y);
+            var yr1 = Vector256.LoadUnsafe(ref re, (nuint)(y + 4));
+            var yi0 = Vector256.LoadUnsafe(ref im, (nuint)y);
+            var yi1 = Vector256.LoadUnsafe(ref im, (nuint)(y + 4));
+            var f0 = yr0 + yi0;
+            var e0 = yr0 - yi0;
+            var f1 = yr1 + yi1;
+            var e1 = yr1 - yi1;
+            var xr0 = Vector256.Create(Unsafe.Add(ref re, x + 0));
+            var xi0 = Vector256.Create(Unsafe.Add(ref im, x + 0));
+            var g0 = xr0 + xi0;
+            k00 = Vector256.FusedMultiplyAdd(yr0, g0, k00);
+            m00 = Vector256.FusedMultiplyAdd(xr0, f0, m00);
+            h00 = Vector256.FusedMultiplyAdd(xi0, e0, h00);
+            k01 = Vector256.FusedMultiplyAdd(yr1, g0, k01);
+            m01 = Vector256.FusedMultiplyAdd(xr0, f1, m01);
+            h01 = Vector256.FusedMultiplyAdd(xi0, e1, h01);
+            var xr1 = Vector256.Create(Unsafe.Add(ref re, x + 1));
+            var xi1 = Vector256.Create(Unsafe.Add(ref im, x + 1));
+            var g1 = xr1 + xi1;
+            k10 = Vector256.FusedMultiplyAdd(yr0, g1, k10);
+            m10 = Vector256.FusedMultiplyAdd(xr1, f0, m10);
+            h10 = Vector256.FusedMultiplyAdd(xi1, e0, h10);
+            k11 = Vector256.FusedMultiplyAdd(yr1, g1, k11);
+            m11 = Vector256.FusedMultiplyAdd(xr1, f1, m11);
+            h11 = Vector256.FusedMultiplyAdd(xi1, e1, h11);
+            var xr2 = Vector256.Create(Unsafe.Add(ref re, x + 2));
+            var xi2 = Vector256.Create(Unsafe.Add(ref im, x + 2));
+            var g2 = xr2 + xi2;
+            k20 = Vector256.FusedMultiplyAdd(yr0, g2, k20);
+            m20 = Vector256.FusedMultiplyAdd(xr2, f0, m20);
+            h20 = Vector256.FusedMultiplyAdd(xi2, e0, h20);
+            k21 = Vector256.FusedMultiplyAdd(yr1, g2, k21);
+            m21 = Vector256.FusedMultiplyAdd(xr2, f1, m21);
+            h21 = Vector256.FusedMultiplyAdd(xi2, e1, h21);
+            var xr3 = Vector256.Create(Unsafe.Add(ref re, x + 3));
+            var xi3 = Vector256.Create(Unsafe.Add(ref im, x + 3));
+            var g3 = xr3 + xi3;
+            k30 = Vector256.FusedMultiplyAdd(yr0, g3, k30);
+            m30 = Vector256.FusedMultiplyAdd(xr3, f0, m30);
+            h30 = Vector256.FusedMultiplyAdd(xi3, e0, h30);
+            k31 = Vector256.FusedMultiplyAdd(yr1, g3, k31);
+            m31 = Vector256.FusedMultiplyAdd(xr3, f1, m31);
+            h31 = Vector256.FusedMultiplyAdd(xi3, e1, h31);
+        }
+        sums[0] = k00 - h00; sums[8] = k00 - m00;
+        sums[1] = k01 - h01; sums[9] = k01 - m01;
+        sums[2] = k10 - h10; sums[10] = k10 - m10;
+        sums[3] = k11 - h11; sums[11] = k11 - m11;
+        sums[4] = k20 - h20; sums[12] = k20 - m20;
+        sums[5] = k21 - h21; sums[13] = k21 - m21;
+        sums[6] = k30 - h30; sums[14] = k30 - m30;
+        sums[7] = k31 - h31; sums[15] = k31 - m31;
+    }
+
+    /// <summary>
     /// One 2 x 8 tile of the lag sums at one time point, with Im X_n = Im x_a,n · Re y_b,π(n) − Re x_a,n · Im y_b,π(n)
     /// formed from two separately rounded products: Σ Im X_n into <paramref name="sums"/>[0..3], Σ |Im X_n| into
     /// [4..7], Σ (Im X_n)² into [8..11] and Σ sign(Im X_n) into [12..15] (row-major, two vectors per row). Only the sums

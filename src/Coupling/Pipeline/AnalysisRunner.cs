@@ -131,7 +131,13 @@ public static class AnalysisRunner
             {
                 var decomposition = decompositions[bi];
                 var cut = trials;
-                InPlan(plan, "window", () => { EdgeReach.Check(cut, decomposition, plan.Window); return 0; });
+                if (!plan.Decomposition.AcceptEdgeEffects)
+                    InPlan(plan, "window", () => { EdgeReach.Check(cut, decomposition, plan.Window); return 0; });
+                else if (EdgeReach.Warning(cut, decomposition, plan.Window) is { } edgeWarning)
+                {
+                    warnings.Add(edgeWarning);
+                    onWarning?.Invoke(edgeWarning);
+                }
             }
             var sets = new NarrowbandSet?[decompositions.Length];
             bool resuming = plan.Bands.Any(b => kept.Contains(UnfinishedRun.ConditionUnit(conditionName, b.Name)));

@@ -287,7 +287,7 @@ public static class PlanReader
 
     private static DecompositionSpec ReadDecomposition(Context ctx, YamlNode node)
     {
-        var m = ctx.Keys(node, "decomposition", ["method", "transition", "attenuation", "cycles", "time_step"]);
+        var m = ctx.Keys(node, "decomposition", ["method", "transition", "attenuation", "cycles", "time_step", "edge_effects"]);
         string method = m.TryGetValue("method", out var mn) ? ctx.Scalar(mn, "decomposition.method") : "fir-hilbert";
         if (method is not ("fir-hilbert" or "morlet"))
             throw ctx.Error(mn!, "decomposition.method", $"'{method}' is not allowed; use 'fir-hilbert' or 'morlet'");
@@ -301,7 +301,15 @@ public static class PlanReader
         int? step = null;
         if (m.TryGetValue("time_step", out var ts) && ctx.Scalar(ts, "decomposition.time_step") != "auto")
             step = ctx.Int(ts, "decomposition.time_step", 1, 100_000);
-        return new DecompositionSpec(method, transition, attenuation, cycles, step);
+        bool acceptEdges = false;
+        if (m.TryGetValue("edge_effects", out var ee))
+        {
+            string v = ctx.Scalar(ee, "decomposition.edge_effects");
+            if (v is not ("refuse" or "accept"))
+                throw ctx.Error(ee, "decomposition.edge_effects", $"'{v}' is not allowed{Spelling.Hint(v, ["refuse", "accept"])}; use 'refuse' or 'accept'");
+            acceptEdges = v == "accept";
+        }
+        return new DecompositionSpec(method, transition, attenuation, cycles, step, acceptEdges);
     }
 
     private static IReadOnlyList<Measure> ReadMeasures(Context ctx, YamlNode node)

@@ -58,8 +58,28 @@ public static class EdgeReach
     /// the window and what to change.</exception>
     public static void Check(TrialSet trials, IBandDecomposition decomposition, TimeRange window)
     {
+        if (Reached(trials, decomposition, window) is not { } reached) return;
+        throw new InputException(reached + " would be computed partly from padding that holds no data. " +
+            "Start the window later or end it earlier, use epochs or events with more data around the window, or a band setting with a shorter reach (a wider transition or fewer cycles); " +
+            "or accept the edge effects with 'edge_effects: accept' under 'decomposition'.");
+    }
+
+    /// <summary>
+    /// The warning for a window that the band's edge effects reach from zero padding when the plan accepts that
+    /// (<c>decomposition.edge_effects: accept</c>); null when they do not reach it.
+    /// </summary>
+    /// <param name="trials">The padded trials of one condition.</param>
+    /// <param name="decomposition">The band's decomposition.</param>
+    /// <param name="window">Analysis window in seconds relative to onset.</param>
+    public static string? Warning(TrialSet trials, IBandDecomposition decomposition, TimeRange window) =>
+        Reached(trials, decomposition, window) is { } reached
+            ? char.ToUpperInvariant(reached[0]) + reached[1..] + " are computed partly from zero padding (accepted by 'edge_effects: accept'): amplitudes fall towards the data's ends in every channel alike there, which envelope measures read as shared envelope."
+            : null;
+
+    private static string? Reached(TrialSet trials, IBandDecomposition decomposition, TimeRange window)
+    {
         var (before, after) = IntoWindow(trials, decomposition, window);
-        if (before == 0 && after == 0) return;
+        if (before == 0 && after == 0) return null;
         var inv = CultureInfo.InvariantCulture;
         double rate = trials.SampleRate, reach = ReachSamples(decomposition) / rate;
         var samples = NarrowbandExtractor.WindowSamples(trials, window, 1);
@@ -71,10 +91,8 @@ public static class EdgeReach
             ( > 0, _) => string.Create(inv, $"its first {before / rate:0.###} s"),
             _ => string.Create(inv, $"its last {after / rate:0.###} s"),
         };
-        throw new InputException(
-            string.Create(inv, $"condition '{trials.Condition}', band '{decomposition.Band.Name}': band isolation reaches {reach:0.###} s from the ends of the recorded data, ") +
+        return string.Create(inv, $"condition '{trials.Condition}', band '{decomposition.Band.Name}': band isolation reaches {reach:0.###} s from the ends of the recorded data, ") +
             string.Create(inv, $"but some trials have only {dataBefore:0.###} s of data before the analysis window and {dataAfter:0.###} s after it (the recording or the epochs end there), ") +
-            $"so {where} would be computed partly from padding that holds no data. " +
-            "Start the window later or end it earlier, use epochs or events with more data around the window, or a band setting with a shorter reach (a wider transition or fewer cycles).");
+            $"so {where} of the window";
     }
 }

@@ -33,6 +33,7 @@ tool="$root/src/Coupling.Cli/bin/Release/net10.0/Coupling.Cli.dll"
 
 mkdir -p "$dir"
 [[ -f "$dir/epochs.npy" ]] || "$python" "$here/array_route.py" generate "$dir"
+"$python" "$here/array_route.py" plans "$dir"
 cd "$dir"
 
 commands=("array|$python $here/array_route.py compute $dir"

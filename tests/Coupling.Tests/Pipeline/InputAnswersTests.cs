@@ -146,6 +146,37 @@ public sealed class InputAnswersTests : IDisposable
     }
 
     [Fact]
+    public void Edge_effects_reaching_the_window_are_analysed_with_a_warning_when_the_plan_accepts_them()
+    {
+        // 20 epochs of 1 s at 100 Hz; the 4-8 Hz Kaiser FIR with a 1 Hz transition reaches further than the epochs hold
+        // around the window (as in the test above). With edge_effects: accept the run goes on and says how far.
+        var rng = new Random(5);
+        var data = new double[20 * 2 * 100];
+        for (int i = 0; i < data.Length; i++) data[i] = rng.NextDouble() - 0.5;
+        NpyArray.Write(_folder["epochs.npy"], [20, 2, 100], data);
+        File.WriteAllText(_folder["labels.txt"], string.Concat(Enumerable.Repeat("a\n", 20)));
+        string Plan(string edges) =>
+            "recording: epochs.npy\nsample_rate: 100\nepochs: { first_sample_time: -0.5, labels: labels.txt, channel_labels: [X, Y] }\n" +
+            "conditions: { a: [a] }\ntrial: { start: -0.5, end: 0.5 }\nwindow: { start: -0.2, end: 0.4 }\nbands: { theta: [5, 8] }\n" +
+            $"decomposition: {{ method: fir-hilbert, transition: 1{edges} }}\nmeasures: [plv]\nsurrogates: 0\nseed: 1\noutput: results\nfigures: false\n";
+        File.WriteAllText(_folder["plan.yaml"], Plan(", edge_effects: refuse"));
+        var error = Assert.Throws<InputException>(() => AnalysisRunner.Run(PlanReader.Read(_folder["plan.yaml"])));
+        Assert.Contains("'edge_effects: accept'", error.Message);
+
+        File.WriteAllText(_folder["plan.yaml"], Plan(", edge_effects: accept"));
+        var warnings = new List<string>();
+        var outcome = AnalysisRunner.Run(PlanReader.Read(_folder["plan.yaml"]), onWarning: warnings.Add);
+        string edge = Assert.Single(warnings, w => w.StartsWith("Condition 'a', band 'theta': band isolation reaches", StringComparison.Ordinal));
+        Assert.Contains("of the window are computed partly from zero padding", edge);
+        Assert.Contains(edge, outcome.Warnings);
+        Assert.All(outcome.Results, r => Assert.All(r.Value, v => Assert.True(double.IsFinite(v))));
+
+        File.WriteAllText(_folder["plan.yaml"], Plan(", edge_effects: acept"));
+        var misspelt = Assert.Throws<InputException>(() => PlanReader.Read(_folder["plan.yaml"]));
+        Assert.Contains("decomposition.edge_effects: 'acept' is not allowed (did you mean 'accept'?)", misspelt.Message);
+    }
+
+    [Fact]
     public void A_truncated_edf_is_analysed_on_its_complete_records_when_the_plan_says_so()
     {
         Assert.Equal(0, Cli("simulate", "--trials", "6", "--output", _folder["sim"]).Code);
