@@ -5,7 +5,9 @@ using Coupling.Benchmarks;
 // reference workload end to end; "kernels [...]" times each kernel group; "precision PLAN [--draws N]" compares
 // single-precision storage with double; "figures [--channels N] [--repeats N]" times figure drawing and writing;
 // "corrections [--channels N] [--trials N] [--times N] [--draws N] [--threads N]" times the surrogate stage under each
-// correction; "stages PLAN [--threads N]" times each stage of a plan's analysis; anything else goes to BenchmarkDotNet.
+// correction; "stages PLAN [--threads N]" times each stage of a plan's analysis; "clusters [--frequencies N]
+// [--trials-a N] [--trials-b N] [--draws N] [--threads N] [--repeats N]" times the cluster test with and without evoked
+// removal; anything else goes to BenchmarkDotNet.
 if (args.Length > 1 && args[0] == "stages")
 {
     int i = Array.IndexOf(args, "--threads");
@@ -18,7 +20,7 @@ if (args.Length > 1 && args[0] == "precision")
     Precision.Run(args[1], i > 0 ? int.Parse(args[i + 1], System.Globalization.CultureInfo.InvariantCulture) : 1000, Console.Out);
     return 0;
 }
-if (args.Length > 0 && (args[0] == "w1" || args[0] == "kernels" || args[0] == "figures" || args[0] == "corrections"))
+if (args.Length > 0 && (args[0] == "w1" || args[0] == "kernels" || args[0] == "figures" || args[0] == "corrections" || args[0] == "clusters"))
 {
     int Option(string name, int fallback)
     {
@@ -32,6 +34,9 @@ if (args.Length > 0 && (args[0] == "w1" || args[0] == "kernels" || args[0] == "f
     else if (args[0] == "corrections")
         CorrectionTiming.Run(Option("channels", 64), Option("trials", 50), Option("times", 16), Option("draws", 499),
             Option("threads", 0), Option("repeats", 3), Console.Out);
+    else if (args[0] == "clusters")
+        ClusterTiming.Run(Option("frequencies", 20), Option("trials-a", 10), Option("trials-b", 40), Option("draws", 199), Option("threads", 1),
+            Option("repeats", 5), Console.Out);
     else if (args[0] == "figures")
         FigureTiming.Run(Option("channels", 10), Option("repeats", 9), Console.Out);
     else

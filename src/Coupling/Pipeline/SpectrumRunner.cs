@@ -12,7 +12,8 @@ namespace Coupling.Pipeline;
 /// Trials are cut as for the band analysis (same trial span, same evoked handling), with the padding the widest wavelet
 /// needs, and reduced to the channels of the chosen pairs before any transform. Pairs are reported with their channels
 /// in the order of the analysed channels, whatever order the plan names them in, so signed measures read as channel_a
-/// relative to channel_b in every table.
+/// relative to channel_b in every table. The cluster test takes the trials as recorded and, with evoked removal, centres
+/// each group of every labelling itself (<see cref="TimeFrequencyClusterTest"/>).
 /// </remarks>
 public static class SpectrumRunner
 {
@@ -73,13 +74,10 @@ public static class SpectrumRunner
         {
             var pair = Resolve(plan, "spectrum.cluster_test.pair", test.Pair, labels);
             int[] two = [pair.A, pair.B];
-            var bins = timeBins ?? windowBins;
-            var a = Build(spec, SelectChannels(Cut(plan, input, plan.Conditions.First(c => c.Name == test.ConditionA), pad), two), bins, workers);
-            var b = Build(spec, SelectChannels(Cut(plan, input, plan.Conditions.First(c => c.Name == test.ConditionB), pad), two), bins, workers);
-            string stage = $"{test.ConditionA} vs {test.ConditionB}: cluster test, cells through {test.Draws} permutations";
-            var cellProgress = progress is null ? null : new Progress<int>(done => progress.Report(new RunProgress(stage, done, a.CellCount)));
-            cluster = InPlan(plan, "spectrum.cluster_test", () => TimeFrequencyClusterTest.Run(a, b, test.Measure, test.ConditionA,
-                test.ConditionB, test.Draws, clusterSeed, test.Threshold, workers > 0 ? workers : null, cancellationToken, cellProgress));
+            TrialSet Recorded(string condition) =>
+                SelectChannels(input.Trials(plan.Conditions.First(c => c.Name == condition), plan.Trial, pad), two);
+            cluster = InPlan(plan, "spectrum.cluster_test", () => TestClusters(spec, test, timeBins ?? windowBins,
+                Recorded(test.ConditionA), Recorded(test.ConditionB), plan.SubtractEvoked, clusterSeed, workers, progress, cancellationToken));
         }
         return new SpectrumAnalysis(spec, spectrum, course, cluster, new ChannelPairSpec(labels[figurePair.A], labels[figurePair.B]),
             pad, spec.Method == "multitaper" ? tapers : null, clusterSeed);
@@ -91,6 +89,24 @@ public static class SpectrumRunner
     /// seed uses.
     /// </summary>
     public static ulong ClusterSeed(ulong seed) => SplitMix64.Mix(unchecked(seed + SplitMix64.Gamma * ((1UL << 41) + 1)));
+
+    /// <summary>
+    /// The cluster test of <paramref name="test"/> on the two conditions' trials as recorded (the pair's two channels,
+    /// padded). With <paramref name="subtractEvoked"/> the test removes the evoked response inside, from each group of
+    /// every labelling, observed and permuted alike (the transforms are linear, so centring the cells equals centring
+    /// the trials); removing each condition's mean here would leave the labellings not exchangeable at unequal counts.
+    /// </summary>
+    internal static ClusterTestResult TestClusters(SpectrumSpec spec, ClusterTestSpec test, IReadOnlyList<TimeBin> bins,
+        TrialSet a, TrialSet b, bool subtractEvoked, ulong seed, int workers, IProgress<RunProgress>? progress,
+        CancellationToken cancellationToken)
+    {
+        var cellsA = Build(spec, a, bins, workers);
+        var cellsB = Build(spec, b, bins, workers);
+        string stage = $"{test.ConditionA} vs {test.ConditionB}: cluster test, cells through {test.Draws} permutations";
+        var cellProgress = progress is null ? null : new Progress<int>(done => progress.Report(new RunProgress(stage, done, cellsA.CellCount)));
+        return TimeFrequencyClusterTest.Run(cellsA, cellsB, test.Measure, test.ConditionA, test.ConditionB, test.Draws, seed,
+            test.Threshold, workers > 0 ? workers : null, cancellationToken, cellProgress, subtractEvoked);
+    }
 
     private static TimeFrequencyCells Build(SpectrumSpec spec, TrialSet trials, IReadOnlyList<TimeBin> bins, int workers) =>
         spec.Method == "morlet"

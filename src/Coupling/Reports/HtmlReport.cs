@@ -17,9 +17,10 @@ namespace Coupling.Reports;
 /// Order: the research-use caution and any warnings; the overview figure of every condition x band x measure; a count
 /// of significant pairs per table linking to the tables; the input, trials kept and dropped, and the decomposition
 /// actually used per band; the artefact flags; per table the significant pairs (value, z, p, corrected p, lag) with the
-/// table's figures; the condition contrasts; the surrogate distribution of one edge; graph tables found in the results
-/// folder; the methods paragraph with its references; the files of the folder. Figures are taken from the results
-/// folder's <c>figures/</c> (whatever it holds for each table's file stem), graph tables from <c>nodes.tsv</c> and any
+/// table's figures; the condition contrasts; the spectra and the cluster test (<see cref="SpectrumSection"/>, with a
+/// <c>spectrum</c> key only); the surrogate distribution of one edge; graph tables found in the results folder; the
+/// methods paragraph with its references; the files of the folder. Figures are taken from the results folder's
+/// <c>figures/</c> (whatever it holds for each table's file stem), graph tables from <c>nodes.tsv</c> and any
 /// <c>graph*.tsv</c> beside it.
 /// </remarks>
 public static class HtmlReport
@@ -70,6 +71,7 @@ public static class HtmlReport
         FlagSection(sb, content);
         TableSections(sb, content, folder);
         ContrastSection(sb, content, folder);
+        SpectrumSection.Append(sb, content.Plan, content.Manifest.Extra?["spectrum"], folder);
         SurrogateSection(sb, content, folder);
         ComponentSection(sb, content);
         GraphTables(sb, folder);

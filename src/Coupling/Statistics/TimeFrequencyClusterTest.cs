@@ -25,6 +25,15 @@ namespace Coupling.Statistics;
 /// |mass| of its clusters (0 without one); an observed cluster's p-value is (1 + #{j : max |mass| of draw j &gt;=
 /// |mass|}) / (M + 1), which controls the family-wise error rate over all cells and clusters at any level
 /// (Maris and Oostenveld 2007, section 4; Phipson and Smyth 2010 for the +1).</para>
+/// <para>With evoked removal, every labelling (the observed one and each permutation alike) centres each of its two
+/// groups on the group's own mean: per cell, channel, time point and taper index, the mean over the group's trials is
+/// subtracted from the group's observations before the measure is computed. Removing each condition's mean before
+/// pooling instead would leave the observed groups centred on themselves (residuals of N trials, which behave like
+/// N - 1) and every permuted group on a mixture of both conditions' means, so at unequal trial counts the observed map
+/// would not be exchangeable with the permuted ones (the argument of <see cref="ConditionContrast"/>). Wavelet
+/// convolution of a segment less its own mean, and multitaper coefficients of a segment less its own mean, are linear
+/// in the trial and the same for every trial, so the cells' group mean is the transform of the group's mean trial and
+/// centring the cells equals removing the group's mean from the recorded trials before the transform, up to rounding.</para>
 /// <para>The result depends only on the data, the seed and M, not on the number of threads.</para>
 /// </remarks>
 public static class TimeFrequencyClusterTest
@@ -41,11 +50,13 @@ public static class TimeFrequencyClusterTest
     /// <param name="maxThreads">Upper bound on worker threads; null for every core.</param>
     /// <param name="cancellationToken">Stops the draws.</param>
     /// <param name="progress">Told the number of cells finished (through every labelling), from the worker threads.</param>
+    /// <param name="subtractEvoked">Whether each group of every labelling has its own trial mean removed (see remarks);
+    /// <paramref name="a"/> and <paramref name="b"/> then hold the cells of the trials as recorded.</param>
     /// <exception cref="InputException">Too few trials for the draws asked, or a threshold out of range.</exception>
     /// <exception cref="ArgumentException">The cells of A and B do not match, or do not hold two channels.</exception>
     public static ClusterTestResult Run(TimeFrequencyCells a, TimeFrequencyCells b, Measure measure, string conditionA,
         string conditionB, int draws, ulong seed, double threshold, int? maxThreads = null, CancellationToken cancellationToken = default,
-        IProgress<int>? progress = null)
+        IProgress<int>? progress = null, bool subtractEvoked = false)
     {
         ArgumentNullException.ThrowIfNull(a);
         ArgumentNullException.ThrowIfNull(b);
@@ -67,7 +78,7 @@ public static class TimeFrequencyClusterTest
         int finished = 0;
         Parallel.For(0, cells, options, cell =>
         {
-            var splitter = new Splitter(pooled[cell], a.TrialCount, a.ObservationsPerTrial, measure);
+            var splitter = new Splitter(pooled[cell], a.TrialCount, a.ObservationsPerTrial, measure, subtractEvoked);
             for (int r = 0; r <= draws; r++) maps[(long)r * cells + cell] = splitter.Difference(orders[r]);
             progress?.Report(Interlocked.Increment(ref finished));
         });
@@ -185,13 +196,15 @@ public static class TimeFrequencyClusterTest
     {
         private readonly NarrowbandSet _pooled;
         private readonly int _trialsA, _perTrial;
+        private readonly bool _centre;
         private readonly PairwiseWorkspace _a, _b;
         private readonly int[] _identityA, _identityB;
         private readonly double[] _valueA = new double[1], _valueB = new double[1];
 
-        public Splitter(NarrowbandSet pooled, int trialsA, int perTrial, Measure measure)
+        public Splitter(NarrowbandSet pooled, int trialsA, int perTrial, Measure measure, bool centre)
         {
             _pooled = pooled;
+            _centre = centre;
             _trialsA = trialsA;
             _perTrial = perTrial;
             int countA = trialsA * perTrial, countB = pooled.TrialCount - countA;
@@ -205,7 +218,10 @@ public static class TimeFrequencyClusterTest
             new(new NarrowbandSet(shape.Band, shape.Channels, observations, shape.Times,
                 new Complex[(long)shape.TimeCount * shape.ChannelCount * observations]), [measure]);
 
-        /// <summary>Value in A minus value in B, trial order[j] going to A for j &lt; N_A and to B after.</summary>
+        /// <summary>
+        /// Value in A minus value in B, trial order[j] going to A for j &lt; N_A and to B after; with centring, each
+        /// group's own trial mean removed first.
+        /// </summary>
         public double Difference(ReadOnlySpan<int> order)
         {
             var setA = _a.Set;
@@ -219,12 +235,33 @@ public static class TimeFrequencyClusterTest
                 var targetB = setB.Data.AsSpan(r * nb, nb);
                 for (int j = 0; j < order.Length; j++)
                     source.Slice(order[j] * k, k).CopyTo(j < _trialsA ? targetA.Slice(j * k, k) : targetB.Slice((j - _trialsA) * k, k));
+                if (_centre)
+                {
+                    CentreInPlace(targetA, k);
+                    CentreInPlace(targetB, k);
+                }
             }
             _a.Reload();
             _b.Reload();
             PairwiseKernels.Compute(_a, _identityA, _valueA);
             PairwiseKernels.Compute(_b, _identityB, _valueB);
             return _valueA[0] - _valueB[0];
+        }
+
+        /// <summary>
+        /// Subtracts from one row of a group (trial-major: observation n K + k is taper k of trial n) the mean over the
+        /// group's trials of each taper index k.
+        /// </summary>
+        private static void CentreInPlace(Span<Complex> row, int perTrial)
+        {
+            int trials = row.Length / perTrial;
+            for (int k = 0; k < perTrial; k++)
+            {
+                Complex sum = Complex.Zero;
+                for (int n = 0; n < trials; n++) sum += row[n * perTrial + k];
+                var mean = sum / trials;
+                for (int n = 0; n < trials; n++) row[n * perTrial + k] -= mean;
+            }
         }
     }
 }

@@ -11,16 +11,20 @@ namespace Coupling.Tests.Pipeline;
 /// <summary>The plan's spectrum key run end to end on the small CSV study (channels A and B share a 10 Hz source).</summary>
 public class SpectrumRunTests
 {
-    /// <summary>Writes the study with alternate trials labelled go and stay, and a plan with the given spectrum key.</summary>
-    private static string Write(TempFolder folder, string spectrum, bool figures = false, int trials = 24)
+    /// <summary>
+    /// Writes the study with alternate trials labelled go and stay (<paramref name="edit"/> may change cells of the
+    /// recording, as in <see cref="SmallStudy.WriteRecording"/>), and a plan with the given spectrum key.
+    /// </summary>
+    internal static string Write(TempFolder folder, string spectrum, bool figures = false, int trials = 24, int threads = 1,
+        bool overwrite = false, Func<int, int, double, double>? edit = null)
     {
-        SmallStudy.WriteRecording(folder.Path, trials);
+        SmallStudy.WriteRecording(folder.Path, trials, edit: edit);
         var events = new StringBuilder("onset\tduration\ttrial_type\n");
         for (int n = 0; n < trials; n++)
             events.Append(string.Create(CultureInfo.InvariantCulture, $"{3 + 1.5 * n:R}\t0\t{(n % 2 == 0 ? "go" : "stay")}\n"));
         File.WriteAllText(folder["rec_events.tsv"], events.ToString());
-        string plan = SmallStudy.PlanText(surrogates: 20, conditions: "{ go: [go], stay: [stay] }")
-            .Replace("figures: false", $"figures: {(figures ? "true" : "false")}") + "\n" + spectrum;
+        string plan = SmallStudy.PlanText(surrogates: 20, threads: threads, conditions: "{ go: [go], stay: [stay] }")
+            .Replace("figures: false", $"figures: {(figures ? "true" : "false")}") + (overwrite ? "\noverwrite: true" : "") + "\n" + spectrum;
         File.WriteAllText(folder["plan.yaml"], plan);
         return folder["plan.yaml"];
     }

@@ -60,6 +60,14 @@ public sealed partial class HtmlReportTests(ReportRun run)
     }
 
     [Fact]
+    public void A_plan_without_a_spectrum_gets_no_spectrum_section()
+    {
+        Assert.Null(run.Plan.Spectrum);
+        Assert.DoesNotContain("id=\"spectrum\"", Html);
+        Assert.DoesNotContain("Spectra and time-frequency maps", Html);
+    }
+
+    [Fact]
     public void The_theta_pair_is_listed_with_its_lag_and_the_trial_counts_and_widths_are_shown()
     {
         // L1 leads R4 by 25 ms in theta (docs/simulated-scenario.md); the lag column shows the coherency phase as a time at
