@@ -95,6 +95,56 @@ public static class PairwiseKernels
     }
 
     /// <summary>
+    /// <see cref="Compute"/> for several draws at once: <paramref name="values"/>[i] receives what
+    /// <c>Compute(workspaces[i], permutations[i], values[i])</c> would, to the last bit. The draws go through the time
+    /// points (and trials) together, so the rows of one time point are read from memory once and then from the cache
+    /// for every draw.
+    /// </summary>
+    /// <param name="workspaces">One workspace per draw, all of the same set and measures (siblings).</param>
+    /// <param name="permutations">One trial permutation per draw.</param>
+    /// <param name="values">One output per draw, as for <see cref="Compute"/>.</param>
+    /// <exception cref="ArgumentException">The spans differ in length, the workspaces are not of one set and measure
+    /// list, or a permutation or output has the wrong length.</exception>
+    public static void ComputeTogether(ReadOnlySpan<PairwiseWorkspace> workspaces, ReadOnlySpan<int[]> permutations,
+        ReadOnlySpan<double[]> values)
+    {
+        if (permutations.Length != workspaces.Length || values.Length != workspaces.Length)
+            throw new ArgumentException("Expected one permutation and one output per workspace.", nameof(permutations));
+        if (workspaces.Length == 0) return;
+        var first = workspaces[0];
+        ArgumentNullException.ThrowIfNull(first);
+        for (int i = 0; i < workspaces.Length; i++)
+        {
+            var w = workspaces[i];
+            ArgumentNullException.ThrowIfNull(w);
+            if (!ReferenceEquals(w.Tables, first.Tables) || !w.Measures.SequenceEqual(first.Measures))
+                throw new ArgumentException("The workspaces must be siblings (one set, one measure list).", nameof(workspaces));
+            if (values[i].Length != w.OutputLength)
+                throw new ArgumentException($"Expected {w.OutputLength} output values, got {values[i].Length}.", nameof(values));
+            CheckPermutation(permutations[i], w.Set.TrialCount, w.Seen);
+            values[i].AsSpan().Clear();
+            foreach (var dense in w.Dense) dense?.Clear();
+        }
+        var set = first.Set;
+        if (first.NeedsPhase || first.NeedsCross)
+        {
+            for (int t = 0; t < set.TimeCount; t++)
+                for (int i = 0; i < workspaces.Length; i++)
+                    AddTimePoint(workspaces[i], t, permutations[i]);
+            for (int i = 0; i < workspaces.Length; i++)
+                Extract(workspaces[i], values[i], static (sum, scale) => sum * scale, 1.0 / set.TimeCount, envelope: false);
+        }
+        if (first.NeedsEnvelope)
+        {
+            for (int n = 0; n < set.TrialCount; n++)
+                for (int i = 0; i < workspaces.Length; i++)
+                    AddTrial(workspaces[i], n, permutations[i][n]);
+            for (int i = 0; i < workspaces.Length; i++)
+                Extract(workspaces[i], values[i], static (sum, scale) => Math.Tanh(sum * scale), 1.0 / set.TrialCount, envelope: true);
+        }
+    }
+
+    /// <summary>
     /// Convenience: every measure in <paramref name="measures"/> for every pair with the trials in their own order
     /// (the observed values). Allocates a workspace; result[k][pair] holds measures[k].
     /// </summary>

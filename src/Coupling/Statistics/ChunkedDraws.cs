@@ -32,6 +32,23 @@ internal static class ChunkedDraws
         CancellationToken cancellationToken, IDrawObserver? observer = null)
         where TWorker : class
     {
+        ArgumentNullException.ThrowIfNull(draw);
+        return RunChunks(draws, observed, first, createWorker, (worker, start, end, sink) =>
+        {
+            for (int d = start; d < end; d++) sink(d, draw(worker, d));
+        }, maxThreads, progress, cancellationToken, observer);
+    }
+
+    /// <summary>
+    /// As <see cref="Run{TWorker}"/>, with <paramref name="drawChunk"/> computing the draws start..end−1 of one chunk
+    /// together (so that they can share what they read) and handing each draw's values to the sink in draw order; the
+    /// sink summarises them before the next is handed over, so the same array may be handed over again.
+    /// </summary>
+    public static NullAccumulator RunChunks<TWorker>(int draws, double[] observed, TWorker? first,
+        Func<TWorker> createWorker, Action<TWorker, int, int, Action<int, double[]>> drawChunk, int? maxThreads,
+        IProgress<int>? progress, CancellationToken cancellationToken, IDrawObserver? observer = null)
+        where TWorker : class
+    {
         int cells = observed.Length;
         int chunks = (draws + DrawsPerChunk - 1) / DrawsPerChunk;
         int threads = maxThreads ?? Environment.ProcessorCount;
@@ -60,12 +77,11 @@ internal static class ChunkedDraws
                 var accumulator = wave[i];
                 accumulator.Reset();
                 int start = chunk * DrawsPerChunk, end = Math.Min(draws, start + DrawsPerChunk);
-                for (int d = start; d < end; d++)
+                drawChunk(worker, start, end, (d, values) =>
                 {
-                    var values = draw(worker, d);
                     accumulator.Add(values, observed);
                     observer?.Observe(d, values);
-                }
+                });
                 workers.Add(worker);
                 int finished = Interlocked.Add(ref done, end - start);
                 progress?.Report(finished);

@@ -71,13 +71,18 @@ public static class SurrogateTest
         for (int n = 0; n < trials; n++) identity[n] = n;
         var observed = new double[cells];
         PairwiseKernels.Compute(prototype, identity, observed);
-        var total = ChunkedDraws.Run(draws, observed, new Worker(prototype),
+        // The draws of a chunk are computed together, time point by time point, so that the rows of one time point
+        // are read from memory once for all of them (PairwiseKernels.ComputeTogether); each draw's values are the same
+        // bits as when it is computed alone.
+        var total = ChunkedDraws.RunChunks(draws, observed, new Worker(prototype),
             () => new Worker(prototype.CreateSibling()),
-            (worker, d) =>
+            (worker, start, end, sink) =>
             {
-                TrialShuffle.Generate(seed, d, worker.Permutation);
-                PairwiseKernels.Compute(worker.Workspace, worker.Permutation, worker.Values);
-                return worker.Values;
+                int count = end - start;
+                for (int i = 0; i < count; i++) TrialShuffle.Generate(seed, start + i, worker.Permutations[i]);
+                PairwiseKernels.ComputeTogether(worker.Workspaces.AsSpan(0, count), worker.Permutations.AsSpan(0, count),
+                    worker.Values.AsSpan(0, count));
+                for (int i = 0; i < count; i++) sink(start + i, worker.Values[i]);
             },
             maxThreads, progress, cancellationToken, observer);
 
@@ -111,10 +116,20 @@ public static class SurrogateTest
                 $"condition '{condition}' has {trials} trials: at most {orders} distinct trial orders, but {draws} surrogates were asked.");
     }
 
-    private sealed class Worker(PairwiseWorkspace workspace)
+    /// <summary>One thread's workspaces, trial orders and values: one of each per draw of a chunk.</summary>
+    private sealed class Worker
     {
-        public PairwiseWorkspace Workspace { get; } = workspace;
-        public int[] Permutation { get; } = new int[workspace.Set.TrialCount];
-        public double[] Values { get; } = new double[workspace.OutputLength];
+        public Worker(PairwiseWorkspace workspace)
+        {
+            Workspaces = new PairwiseWorkspace[ChunkedDraws.DrawsPerChunk];
+            Workspaces[0] = workspace;
+            for (int i = 1; i < Workspaces.Length; i++) Workspaces[i] = workspace.CreateSibling();
+            Permutations = Workspaces.Select(w => new int[w.Set.TrialCount]).ToArray();
+            Values = Workspaces.Select(w => new double[w.OutputLength]).ToArray();
+        }
+
+        public PairwiseWorkspace[] Workspaces { get; }
+        public int[][] Permutations { get; }
+        public double[][] Values { get; }
     }
 }
