@@ -16,6 +16,12 @@ namespace Coupling.Measures;
 internal sealed class PairTables
 {
     /// <summary>Channels per row are padded to a multiple of this (two vectors of four doubles).</summary>
+    /// <summary>
+    /// The envelope correlations of every trial pair, when a surrogate test built them (<see cref="PairwiseKernels.BuildTrialPairs"/>);
+    /// shared, like the tables, by every sibling workspace.
+    /// </summary>
+    public TrialPairTable? TrialPairs { get; set; }
+
     public const int ChannelMultiple = 8;
 
     public PairTables(NarrowbandSet set, bool phase, bool cross, bool envelope, bool orthogonal)

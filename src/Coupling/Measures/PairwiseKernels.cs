@@ -88,9 +88,89 @@ public static class PairwiseKernels
         }
         if (workspace.NeedsEnvelope)
         {
+            if (workspace.Tables.TrialPairs is { } table)
+            {
+                AddEnvelopeFromTable(workspace, table, permutation, values);
+                return;
+            }
             for (int n = 0; n < trials; n++)
                 AddTrial(workspace, n, permutation[n]);
             Extract(workspace, values, static (sum, scale) => Math.Tanh(sum * scale), 1.0 / trials, envelope: true);
+        }
+    }
+
+    /// <summary>
+    /// Computes the envelope correlations of every trial pair (n, m) once (<see cref="TrialPairTable"/>) and attaches
+    /// them to the workspace's tables, so that this workspace and its siblings add up table rows instead of computing
+    /// trial pairs in every draw. Same values to the last bit.
+    /// </summary>
+    internal static void BuildTrialPairs(PairwiseWorkspace prototype, int? maxThreads, CancellationToken cancellationToken)
+    {
+        ArgumentNullException.ThrowIfNull(prototype);
+        var envelope = EnvelopeSlots(prototype);
+        int trials = prototype.Set.TrialCount, pairs = prototype.PairCount;
+        var table = new TrialPairTable(trials, envelope.Length, pairs);
+        var options = new ParallelOptions { MaxDegreeOfParallelism = maxThreads ?? -1, CancellationToken = cancellationToken };
+        Parallel.For(0, trials, options, () => prototype.CreateSibling(), (n, _, scratch) =>
+        {
+            for (int m = 0; m < trials; m++)
+            {
+                foreach (int k in envelope) scratch.Dense[k]!.Clear();
+                AddTrial(scratch, n, m);
+                for (int e = 0; e < envelope.Length; e++)
+                    CopyPairs(scratch, scratch.Dense[envelope[e]]!, table.Values.AsSpan(checked((int)table.Row(n, m, e)), pairs));
+            }
+            return scratch;
+        }, _ => { });
+        prototype.Tables.TrialPairs = table;
+    }
+
+    /// <summary>sums[p] += row[p] for every p (elementwise, so the same bits as one addition at a time).</summary>
+    private static void AddInPlace(Span<double> sums, ReadOnlySpan<double> row)
+    {
+        int p = 0;
+        for (; p <= sums.Length - Vector256<double>.Count; p += Vector256<double>.Count)
+            (Vector256.Create(sums.Slice(p, Vector256<double>.Count)) + Vector256.Create(row.Slice(p, Vector256<double>.Count)))
+                .CopyTo(sums.Slice(p, Vector256<double>.Count));
+        for (; p < sums.Length; p++) sums[p] += row[p];
+    }
+
+    /// <summary>The output slots of the envelope measures, in slot order.</summary>
+    private static int[] EnvelopeSlots(PairwiseWorkspace w) =>
+        Enumerable.Range(0, w.Measures.Count).Where(k => w.Measures[k] is Measure.Aec or Measure.AecOrth).ToArray();
+
+    /// <summary>Copies the pairs a &lt; b of a dense sum array into the table, in <see cref="PairIndex"/> order.</summary>
+    private static void CopyPairs(PairwiseWorkspace w, AlignedArray dense, Span<double> target)
+    {
+        int channels = w.Set.ChannelCount, stride = w.Tables.Stride, pair = 0;
+        for (int a = 0; a < channels - 1; a++)
+        {
+            var source = dense.Slice((long)a * stride + a + 1, channels - a - 1);
+            source.CopyTo(target.Slice(pair, source.Length));
+            pair += source.Length;
+        }
+    }
+
+    /// <summary>
+    /// The envelope measures of one draw from the trial-pair table: per measure and pair, Σ_n atanh r(n, π(n)) in trial
+    /// order, then tanh of the mean, as <see cref="Extract"/> does with sums computed on the spot.
+    /// </summary>
+    private static void AddEnvelopeFromTable(PairwiseWorkspace w, TrialPairTable table, ReadOnlySpan<int> permutation, Span<double> values)
+    {
+        int pairs = w.PairCount, trials = table.Trials;
+        double scale = 1.0 / trials;
+        int e = 0;
+        for (int k = 0; k < w.Measures.Count; k++)
+        {
+            if (w.Measures[k] is not (Measure.Aec or Measure.AecOrth)) continue;
+            var sums = values.Slice(k * pairs, pairs);
+            sums.Clear();
+            for (int n = 0; n < trials; n++)
+            {
+                AddInPlace(sums, table.Values.AsSpan(checked((int)table.Row(n, permutation[n], e)), pairs));
+            }
+            for (int p = 0; p < pairs; p++) sums[p] = Math.Tanh(sums[p] * scale);
+            e++;
         }
     }
 
@@ -134,7 +214,12 @@ public static class PairwiseKernels
             for (int i = 0; i < workspaces.Length; i++)
                 Extract(workspaces[i], values[i], static (sum, scale) => sum * scale, 1.0 / set.TimeCount, envelope: false);
         }
-        if (first.NeedsEnvelope)
+        if (first.NeedsEnvelope && first.Tables.TrialPairs is { } table)
+        {
+            for (int i = 0; i < workspaces.Length; i++)
+                AddEnvelopeFromTable(workspaces[i], table, permutations[i], values[i]);
+        }
+        else if (first.NeedsEnvelope)
         {
             for (int n = 0; n < set.TrialCount; n++)
                 for (int i = 0; i < workspaces.Length; i++)

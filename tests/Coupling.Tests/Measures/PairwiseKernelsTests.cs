@@ -129,6 +129,32 @@ public class PairwiseKernelsTests
         Assert.Throws<ArgumentException>(() => PairwiseKernels.ComputeTogether([first, stranger], permutations[..2], together[..2]));
     }
 
+    [Theory]
+    [InlineData(5, 9, 17)]
+    [InlineData(13, 4, 21)]
+    public void Envelope_measures_from_the_trial_pair_table_are_the_same_bits_as_computed_per_draw(int channels, int trials, int times)
+    {
+        // The table holds atanh r of every trial pair; a draw adds N of its rows in trial order, the same additions
+        // in the same order as computing them on the spot.
+        var set = TestSignals.Random(channels, trials, times, seed: 31 + channels);
+        var tabled = new PairwiseWorkspace(set, Every);
+        PairwiseKernels.BuildTrialPairs(tabled, maxThreads: 2, CancellationToken.None);
+        var sibling = tabled.CreateSibling();
+        for (int d = 0; d < 4; d++)
+        {
+            var perm = new int[trials];
+            TrialShuffle.Generate(5, d, perm);
+            var expected = new double[tabled.OutputLength];
+            PairwiseKernels.Compute(new PairwiseWorkspace(set, Every), perm, expected);
+            var fromTable = new double[tabled.OutputLength];
+            PairwiseKernels.Compute(tabled, perm, fromTable);
+            Assert.Equal(expected, fromTable);
+            var together = new[] { new double[tabled.OutputLength] };
+            PairwiseKernels.ComputeTogether([sibling], [perm], together);
+            Assert.Equal(expected, together[0]);
+        }
+    }
+
     [Fact]
     public void A_subset_of_measures_in_any_order_gives_the_same_values_as_all_measures()
     {
