@@ -1,6 +1,4 @@
 using System.Collections.Immutable;
-using System.Numerics;
-using MathNet.Numerics.IntegralTransforms;
 
 namespace Coupling.Spectral;
 
@@ -127,9 +125,9 @@ public sealed record FirFilter
     {
         int n = Taps.Length;
         int size = SpectralChecks.PowerOfTwoAtLeast(Math.Max(4096, GridPointsPerLobe * n));
-        var spectrum = new Complex[size];
-        for (int k = 0; k < n; k++) spectrum[k] = Taps[k];
-        Fourier.Forward(spectrum, FourierOptions.Matlab);
+        var re = new double[size];
+        var im = new double[size];
+        PowerOfTwoFft.Of(size).ForwardReal(Taps.AsSpan(), re, im);
         double pass = 0, stop = 0;
         int c = DelaySamples;
         for (int k = 0; k <= size / 2; k++)
@@ -140,7 +138,7 @@ public sealed record FirFilter
             if (!inPass && !inStop) continue;
             // Undo the causal delay: A(f) = Re(H(f) exp(+2 pi i f c / fs)); k c mod size keeps the angle exact.
             double angle = 2 * Math.PI * ((long)k * c % size) / size;
-            double a = spectrum[k].Real * Math.Cos(angle) - spectrum[k].Imaginary * Math.Sin(angle);
+            double a = re[k] * Math.Cos(angle) - im[k] * Math.Sin(angle);
             if (inPass) pass = Math.Max(pass, Math.Abs(a - 1));
             else stop = Math.Max(stop, Math.Abs(a));
         }
