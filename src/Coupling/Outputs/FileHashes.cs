@@ -1,3 +1,4 @@
+using System.Collections.Concurrent;
 using System.Security.Cryptography;
 
 namespace Coupling.Outputs;
@@ -15,12 +16,26 @@ public static class FileHashes
         ArgumentException.ThrowIfNullOrEmpty(path);
         try
         {
-            using var stream = new FileStream(path, FileMode.Open, FileAccess.Read, FileShare.Read, bufferSize: 1 << 20, FileOptions.SequentialScan);
-            return Convert.ToHexStringLower(SHA256.HashData(stream));
+            // A run hashes its inputs twice (when it starts, for resuming, and for the manifest); a file whose full
+            // path, length and modification time are unchanged is not read again.
+            var info = new FileInfo(path);
+            var key = (info.FullName, info.Length, info.LastWriteTimeUtc.Ticks);
+            if (Known.TryGetValue(key, out var known)) return known;
+            string hash = Hash(path);
+            Known[key] = hash;
+            return hash;
         }
         catch (Exception e) when (e is IOException or UnauthorizedAccessException)
         {
             throw FileErrors.Reading(path, "input file", e);
         }
+    }
+
+    private static readonly ConcurrentDictionary<(string Path, long Bytes, long Ticks), string> Known = new();
+
+    private static string Hash(string path)
+    {
+        using var stream = new FileStream(path, FileMode.Open, FileAccess.Read, FileShare.Read, bufferSize: 1 << 20, FileOptions.SequentialScan);
+        return Convert.ToHexStringLower(SHA256.HashData(stream));
     }
 }
