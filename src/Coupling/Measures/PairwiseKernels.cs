@@ -110,6 +110,7 @@ public static class PairwiseKernels
         var envelope = EnvelopeSlots(prototype);
         int trials = prototype.Set.TrialCount, pairs = prototype.PairCount;
         var table = new TrialPairTable(trials, envelope.Length, pairs);
+        prototype.Tables.TrialPairs = table;
         var options = new ParallelOptions { MaxDegreeOfParallelism = maxThreads ?? -1, CancellationToken = cancellationToken };
         Parallel.For(0, trials, options, () => prototype.CreateSibling(), (n, _, scratch) =>
         {
@@ -118,11 +119,19 @@ public static class PairwiseKernels
                 foreach (int k in envelope) scratch.Dense[k]!.Clear();
                 AddTrial(scratch, n, m);
                 for (int e = 0; e < envelope.Length; e++)
-                    CopyPairs(scratch, scratch.Dense[envelope[e]]!, table.Values.AsSpan(checked((int)table.Row(n, m, e)), pairs));
+                    CopyPairs(scratch, scratch.Dense[envelope[e]]!, table.Row(n, m, e));
             }
             return scratch;
         }, _ => { });
-        prototype.Tables.TrialPairs = table;
+    }
+
+    /// <summary>Detaches and frees the trial-pair table of <paramref name="workspace"/>'s tables, if any.</summary>
+    internal static void ReleaseTrialPairs(PairwiseWorkspace workspace)
+    {
+        ArgumentNullException.ThrowIfNull(workspace);
+        var table = workspace.Tables.TrialPairs;
+        workspace.Tables.TrialPairs = null;
+        table?.Dispose();
     }
 
     /// <summary>sums[p] += row[p] for every p (elementwise, so the same bits as one addition at a time).</summary>
@@ -167,7 +176,7 @@ public static class PairwiseKernels
             sums.Clear();
             for (int n = 0; n < trials; n++)
             {
-                AddInPlace(sums, table.Values.AsSpan(checked((int)table.Row(n, permutation[n], e)), pairs));
+                AddInPlace(sums, table.Row(n, permutation[n], e));
             }
             for (int p = 0; p < pairs; p++) sums[p] = Math.Tanh(sums[p] * scale);
             e++;

@@ -23,13 +23,17 @@ namespace Coupling.Measures;
 public static class SignalSummaries
 {
     /// <summary>Summarises <paramref name="set"/>, the narrowband signals of <paramref name="condition"/>.</summary>
-    public static BandSignalSummary Summarise(NarrowbandSet set, string condition)
+    /// <param name="set">The narrowband signals.</param>
+    /// <param name="condition">The condition's name, carried into the summary.</param>
+    /// <param name="maxThreads">Threads for the pair sums (null: all cores); each pair's sum runs over the time points
+    /// in order on one thread, so the result does not depend on it.</param>
+    public static BandSignalSummary Summarise(NarrowbandSet set, string condition, int? maxThreads = null)
     {
         ArgumentNullException.ThrowIfNull(set);
         int channels = set.ChannelCount, trials = set.TrialCount, times = set.TimeCount;
         var power = new double[channels];
         var locking = new double[channels];
-        var rowPower = new double[channels];
+        var rowPower = new double[(long)times * channels];
         int pairs = PairIndex.Count(channels);
         var sumRe = new double[pairs];
         var sumIm = new double[pairs];
@@ -46,17 +50,22 @@ public static class SignalSummaries
                     p += row[n].Real * row[n].Real + row[n].Imaginary * row[n].Imaginary;
                     if (m > 0) unit += row[n] / m;
                 }
-                rowPower[c] = p;
+                rowPower[(long)t * channels + c] = p;
                 power[c] += p;
                 locking[c] += trials > 0 ? unit.Magnitude / trials : 0;
             }
-            int k = 0;
-            for (int a = 0; a < channels; a++)
+        }
+        // Coherency sums: one channel a (its pairs with every b > a) per work item.
+        Parallel.For(0, channels - 1, new ParallelOptions { MaxDegreeOfParallelism = maxThreads ?? -1 }, a =>
+        {
+            int first = PairIndex.Of(a, a + 1, channels);
+            for (int t = 0; t < times; t++)
             {
                 var ra = set.Row(t, a);
-                for (int b = a + 1; b < channels; b++, k++)
+                double powerA = rowPower[(long)t * channels + a];
+                for (int b = a + 1, k = first; b < channels; b++, k++)
                 {
-                    double denominator = Math.Sqrt(rowPower[a] * rowPower[b]);
+                    double denominator = Math.Sqrt(powerA * rowPower[(long)t * channels + b]);
                     if (!(denominator > 0)) continue;
                     var rb = set.Row(t, b);
                     double re = 0, im = 0;
@@ -69,7 +78,7 @@ public static class SignalSummaries
                     sumIm[k] += im / denominator;
                 }
             }
-        }
+        });
         double cells = (double)times * trials;
         for (int c = 0; c < channels; c++)
         {

@@ -1,3 +1,5 @@
+using System.Runtime.InteropServices;
+
 namespace Coupling.Measures;
 
 /// <summary>
@@ -8,9 +10,11 @@ namespace Coupling.Measures;
 /// </summary>
 /// <remarks>
 /// A draw's sum Σ_n atanh r(n, π(n)) adds the same numbers in the same order (n = 0, 1, ...) whether they come from
-/// the table or are computed on the spot, so the values are the same bits either way.
+/// the table or are computed on the spot, so the values are the same bits either way. The table lives in native memory
+/// and is freed by <see cref="Dispose"/> when its test ends, so that a run's peak memory holds one table at a time
+/// rather than whatever the garbage collector has not yet reclaimed.
 /// </remarks>
-internal sealed class TrialPairTable
+internal sealed unsafe class TrialPairTable : IDisposable
 {
     /// <summary>Doubles the table may hold (512 MiB); beyond it the draws compute their trial pairs as they go.</summary>
     public const long DefaultBudget = 64L << 20;
@@ -20,8 +24,12 @@ internal sealed class TrialPairTable
         Trials = trials;
         Slots = slots;
         Pairs = pairs;
-        Values = new double[checked((long)trials * trials * slots * pairs)];
+        _length = checked((long)trials * trials * slots * pairs);
+        _values = (double*)NativeMemory.AlignedAlloc((nuint)(_length * sizeof(double)), 64);
     }
+
+    private readonly long _length;
+    private double* _values;
 
     /// <summary>Number of trials N.</summary>
     public int Trials { get; }
@@ -32,12 +40,33 @@ internal sealed class TrialPairTable
     /// <summary>Number of channel pairs.</summary>
     public int Pairs { get; }
 
-    /// <summary>atanh r for trial n of the first channel and m of the second, envelope measure e, pair p, at
-    /// ((n·N + m)·slots + e)·pairs + p.</summary>
-    public double[] Values { get; }
+    /// <summary>
+    /// The row of atanh r for trial <paramref name="n"/> of the first channel and <paramref name="m"/> of the second,
+    /// envelope measure <paramref name="slot"/>: one value per pair.
+    /// </summary>
+    public Span<double> Row(int n, int m, int slot)
+    {
+        ObjectDisposedException.ThrowIf(_values == null, this);
+        if ((uint)n >= (uint)Trials || (uint)m >= (uint)Trials || (uint)slot >= (uint)Slots)
+            throw new ArgumentOutOfRangeException(nameof(n));
+        return new Span<double>(_values + (((long)n * Trials + m) * Slots + slot) * Pairs, Pairs);
+    }
 
-    /// <summary>Offset of the row of (<paramref name="n"/>, <paramref name="m"/>, <paramref name="slot"/>).</summary>
-    public long Row(int n, int m, int slot) => (((long)n * Trials + m) * Slots + slot) * Pairs;
+    /// <summary>Frees the table's memory.</summary>
+    public void Dispose()
+    {
+        Free();
+        GC.SuppressFinalize(this);
+    }
+
+    ~TrialPairTable() => Free();
+
+    private void Free()
+    {
+        if (_values == null) return;
+        NativeMemory.AlignedFree(_values);
+        _values = null;
+    }
 
     /// <summary>
     /// Whether a table pays for <paramref name="draws"/> draws and fits <paramref name="budget"/> doubles: it costs as

@@ -185,7 +185,7 @@ public static class AnalysisRunner
                 var matched = plan.MatchTrials > 0
                     ? TrialResampling.Matched(Narrowband(), plan.Measures, trialCounts.Values.Min(), plan.MatchTrials, Seeds.ForMatching(plan.Seed, ci, bi))
                     : null;
-                signals.Add(SignalSummaries.Summarise(Narrowband(), conditionName));
+                signals.Add(SignalSummaries.Summarise(Narrowband(), conditionName, workers > 0 ? workers : null));
                 double[]? Slice(double[]? all, int k) => all?.AsSpan(k * pairs, pairs).ToArray();
                 for (int k = 0; k < tested.Count; k++)
                 {

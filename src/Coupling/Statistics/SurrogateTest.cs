@@ -71,23 +71,31 @@ public static class SurrogateTest
         for (int n = 0; n < trials; n++) identity[n] = n;
         var observed = new double[cells];
         PairwiseKernels.Compute(prototype, identity, observed);
-        // With more draws than trials, the envelope correlations of all N² trial pairs cost less than N per draw.
-        if (TrialPairTable.Pays(trials, measures.Count(m => m is Measure.Aec or Measure.AecOrth), pairs, draws))
-            PairwiseKernels.BuildTrialPairs(prototype, maxThreads, cancellationToken);
-        // The draws of a chunk are computed together, time point by time point, so that the rows of one time point
-        // are read from memory once for all of them (PairwiseKernels.ComputeTogether); each draw's values are the same
-        // bits as when it is computed alone.
-        var total = ChunkedDraws.RunChunks(draws, observed, new Worker(prototype),
-            () => new Worker(prototype.CreateSibling()),
-            (worker, start, end, sink) =>
-            {
-                int count = end - start;
-                for (int i = 0; i < count; i++) TrialShuffle.Generate(seed, start + i, worker.Permutations[i]);
-                PairwiseKernels.ComputeTogether(worker.Workspaces.AsSpan(0, count), worker.Permutations.AsSpan(0, count),
-                    worker.Values.AsSpan(0, count));
-                for (int i = 0; i < count; i++) sink(start + i, worker.Values[i]);
-            },
-            maxThreads, progress, cancellationToken, observer);
+        NullAccumulator total;
+        try
+        {
+            // With more draws than trials, the envelope correlations of all N² trial pairs cost less than N per draw.
+            if (TrialPairTable.Pays(trials, measures.Count(m => m is Measure.Aec or Measure.AecOrth), pairs, draws))
+                PairwiseKernels.BuildTrialPairs(prototype, maxThreads, cancellationToken);
+            // The draws of a chunk are computed together, time point by time point, so that the rows of one time
+            // point are read from memory once for all of them (PairwiseKernels.ComputeTogether); each draw's values
+            // are the same bits as when it is computed alone.
+            total = ChunkedDraws.RunChunks(draws, observed, new Worker(prototype),
+                () => new Worker(prototype.CreateSibling()),
+                (worker, start, end, sink) =>
+                {
+                    int count = end - start;
+                    for (int i = 0; i < count; i++) TrialShuffle.Generate(seed, start + i, worker.Permutations[i]);
+                    PairwiseKernels.ComputeTogether(worker.Workspaces.AsSpan(0, count), worker.Permutations.AsSpan(0, count),
+                        worker.Values.AsSpan(0, count));
+                    for (int i = 0; i < count; i++) sink(start + i, worker.Values[i]);
+                },
+                maxThreads, progress, cancellationToken, observer);
+        }
+        finally
+        {
+            PairwiseKernels.ReleaseTrialPairs(prototype);
+        }
 
         var results = new SurrogateResult[slots];
         for (int k = 0; k < slots; k++)

@@ -140,6 +140,18 @@ public class PairwiseKernelsTests
         var tabled = new PairwiseWorkspace(set, Every);
         PairwiseKernels.BuildTrialPairs(tabled, maxThreads: 2, CancellationToken.None);
         var sibling = tabled.CreateSibling();
+        try
+        {
+            CompareWithTable(set, trials, tabled, sibling);
+        }
+        finally
+        {
+            PairwiseKernels.ReleaseTrialPairs(tabled);
+        }
+    }
+
+    private static void CompareWithTable(Coupling.Spectral.NarrowbandSet set, int trials, PairwiseWorkspace tabled, PairwiseWorkspace sibling)
+    {
         for (int d = 0; d < 4; d++)
         {
             var perm = new int[trials];

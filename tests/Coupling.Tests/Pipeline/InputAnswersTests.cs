@@ -122,20 +122,30 @@ public sealed class InputAnswersTests : IDisposable
         Assert.Contains("Band 'slow' (4-7 Hz): the 0.5 s analysis window holds only 2 cycles of 4 Hz, fewer than 3", w);
     }
 
-    [Fact]
-    public void A_filter_longer_than_the_epochs_is_warned_about()
+    /// <summary>20 epochs of 1 s at 100 Hz (from -0.5 s), two channels of uniform noise, all labelled 'a'.</summary>
+    private void WriteShortNoiseEpochs()
     {
-        // 20 epochs of 1 s at 100 Hz, two channels of noise; a 4-8 Hz FIR band-pass with a 1 Hz transition is several
-        // seconds long (Kaiser window length ~ (A - 8) / (2.285 * 2 pi * tw / fs), Kaiser 1974).
         var rng = new Random(5);
         var data = new double[20 * 2 * 100];
         for (int i = 0; i < data.Length; i++) data[i] = rng.NextDouble() - 0.5;
         NpyArray.Write(_folder["epochs.npy"], [20, 2, 100], data);
         File.WriteAllText(_folder["labels.txt"], string.Concat(Enumerable.Repeat("a\n", 20)));
-        File.WriteAllText(_folder["plan.yaml"],
-            "recording: epochs.npy\nsample_rate: 100\nepochs: { first_sample_time: -0.5, labels: labels.txt, channel_labels: [X, Y] }\n" +
-            "conditions: { a: [a] }\ntrial: { start: -0.5, end: 0.5 }\nwindow: { start: -0.2, end: 0.4 }\nbands: { theta: [5, 8] }\n" +
-            "decomposition: { method: fir-hilbert, transition: 1 }\nmeasures: [plv]\nsurrogates: 0\nseed: 1\noutput: results\nfigures: false\n");
+    }
+
+    /// <summary>A plan for <see cref="WriteShortNoiseEpochs"/>: theta by a FIR with a 1 Hz transition, and
+    /// <paramref name="decompositionExtra"/> appended to the decomposition's keys.</summary>
+    private static string ShortEpochPlan(string decompositionExtra) =>
+        "recording: epochs.npy\nsample_rate: 100\nepochs: { first_sample_time: -0.5, labels: labels.txt, channel_labels: [X, Y] }\n" +
+        "conditions: { a: [a] }\ntrial: { start: -0.5, end: 0.5 }\nwindow: { start: -0.2, end: 0.4 }\nbands: { theta: [5, 8] }\n" +
+        $"decomposition: {{ method: fir-hilbert, transition: 1{decompositionExtra} }}\nmeasures: [plv]\nsurrogates: 0\nseed: 1\noutput: results\nfigures: false\n";
+
+    [Fact]
+    public void A_filter_longer_than_the_epochs_is_warned_about()
+    {
+        // 20 epochs of 1 s at 100 Hz, two channels of noise; a 4-8 Hz FIR band-pass with a 1 Hz transition is several
+        // seconds long (Kaiser window length ~ (A - 8) / (2.285 * 2 pi * tw / fs), Kaiser 1974).
+        WriteShortNoiseEpochs();
+        File.WriteAllText(_folder["plan.yaml"], ShortEpochPlan(""));
         // The warning comes first; then the run is refused, because the filter's edge effects from the zeros past the
         // epochs would reach into the analysis window.
         var warnings = new List<string>();
@@ -150,15 +160,8 @@ public sealed class InputAnswersTests : IDisposable
     {
         // 20 epochs of 1 s at 100 Hz; the 4-8 Hz Kaiser FIR with a 1 Hz transition reaches further than the epochs hold
         // around the window (as in the test above). With edge_effects: accept the run goes on and says how far.
-        var rng = new Random(5);
-        var data = new double[20 * 2 * 100];
-        for (int i = 0; i < data.Length; i++) data[i] = rng.NextDouble() - 0.5;
-        NpyArray.Write(_folder["epochs.npy"], [20, 2, 100], data);
-        File.WriteAllText(_folder["labels.txt"], string.Concat(Enumerable.Repeat("a\n", 20)));
-        string Plan(string edges) =>
-            "recording: epochs.npy\nsample_rate: 100\nepochs: { first_sample_time: -0.5, labels: labels.txt, channel_labels: [X, Y] }\n" +
-            "conditions: { a: [a] }\ntrial: { start: -0.5, end: 0.5 }\nwindow: { start: -0.2, end: 0.4 }\nbands: { theta: [5, 8] }\n" +
-            $"decomposition: {{ method: fir-hilbert, transition: 1{edges} }}\nmeasures: [plv]\nsurrogates: 0\nseed: 1\noutput: results\nfigures: false\n";
+        WriteShortNoiseEpochs();
+        static string Plan(string edges) => ShortEpochPlan(edges);
         File.WriteAllText(_folder["plan.yaml"], Plan(", edge_effects: refuse"));
         var error = Assert.Throws<InputException>(() => AnalysisRunner.Run(PlanReader.Read(_folder["plan.yaml"])));
         Assert.Contains("'edge_effects: accept'", error.Message);
