@@ -30,19 +30,24 @@ public static class MethodSources
         ["network-based"] = new("Zalesky et al. 2010", "Zalesky A, Fornito A, Bullmore ET (2010). Network-based statistic: identifying differences in brain networks. NeuroImage 53:1197-1207."),
         ["pareto-tail"] = new("Knijnenburg et al. 2009", "Knijnenburg TA, Wessels LFA, Reinders MJT, Shmulevich I (2009). Fewer permutations, more accurate P-values. Bioinformatics 25:i161-i168."),
         ["label-permutation"] = new("Maris & Oostenveld 2007", "Maris E, Oostenveld R (2007). Nonparametric statistical testing of EEG- and MEG-data. J Neurosci Methods 164:177-190."),
+        ["slepian"] = new("Slepian 1978", "Slepian D (1978). Prolate spheroidal wave functions, Fourier analysis, and uncertainty V: the discrete case. Bell Syst Tech J 57:1371-1430."),
+        ["thomson"] = new("Thomson 1982", "Thomson DJ (1982). Spectrum estimation and harmonic analysis. Proc IEEE 70:1055-1096."),
         ["fisher-z"] = new("Fisher 1915", "Fisher RA (1915). Frequency distribution of the values of the correlation coefficient in samples from an indefinitely large population. Biometrika 10:507-521."),
     };
 
     /// <summary>
     /// The source of <paramref name="key"/>: a measure key (<c>wpli-debiased</c> shares the wPLI paper, <c>aec-orth</c> the
     /// orthogonalization paper that also defines the plain AEC used here) or one of kaiser, hilbert, morlet,
-    /// permutation-p, fdr-bh, benjamini-yekutieli, max-statistic, network-based, pareto-tail, label-permutation, fisher-z.
+    /// permutation-p, fdr-bh, benjamini-yekutieli, max-statistic, network-based, pareto-tail, label-permutation, fisher-z,
+    /// slepian (DPSS tapers), thomson (the multitaper method), cluster-permutation (the cluster test over frequency x time,
+    /// from the same paper as label-permutation).
     /// </summary>
     /// <exception cref="ArgumentException">No source is recorded for the key.</exception>
     public static Source Of(string key) => key switch
     {
         "wpli-debiased" => Sources["wpli"],
         "aec-orth" => Sources["aec"],
+        "cluster-permutation" => Sources["label-permutation"],
         _ => Sources.TryGetValue(key, out var s) ? s : throw new ArgumentException($"No source recorded for '{key}'.", nameof(key)),
     };
 }

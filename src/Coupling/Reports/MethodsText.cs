@@ -80,7 +80,7 @@ public static class MethodsText
             parts.Add("No significance test was made (values only).");
             if (plan["contrasts"] is JsonArray { Count: > 0 } untested)
                 parts.Add($"Differences between conditions ({string.Join(", ", untested.Select(c => $"{c?["condition_a"]} vs {c?["condition_b"]}"))}) were computed without a test.");
-            return new Methods(string.Join(" ", parts), cited.Select(s => s.Reference).ToArray());
+            return Done();
         }
         parts.Add(
             $"Each value was tested against {surrogates} trial-shuffle surrogates, in which the trials of the second channel were put in a random order " +
@@ -93,7 +93,13 @@ public static class MethodsText
             parts.Add($"Differences between conditions ({string.Join(", ", names)}) were tested by {surrogates} random reassignments of the condition " +
                       $"labels of the pooled trials keeping both group sizes, two-sided ({Cite("label-permutation")}), and corrected in the same way.");
         }
-        return new Methods(string.Join(" ", parts), cited.Select(s => s.Reference).ToArray());
+        return Done();
+
+        Methods Done()
+        {
+            parts.AddRange(SpectrumMethodsText.Sentences(manifest, plan, Cite));
+            return new Methods(string.Join(" ", parts), cited.Select(s => s.Reference).ToArray());
+        }
     }
 
     /// <summary>The sentence naming the correction across pairs recorded in the manifest (Benjamini-Hochberg when none is recorded).</summary>
@@ -137,7 +143,8 @@ public static class MethodsText
 
     private static string ShortVersion(string version) => version.Split('+')[0];
 
-    private static string Join(IReadOnlyList<string> items) => items.Count switch
+    /// <summary>"a", "a and b", "a, b and c".</summary>
+    internal static string Join(IReadOnlyList<string> items) => items.Count switch
     {
         0 => "no measure",
         1 => items[0],

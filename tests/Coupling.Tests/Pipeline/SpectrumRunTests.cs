@@ -1,4 +1,5 @@
 using System.Globalization;
+using System.Net;
 using System.Text;
 using System.Text.Json;
 using Coupling.Pipeline;
@@ -95,6 +96,20 @@ public class SpectrumRunTests
         var outputs = manifest.RootElement.GetProperty("outputs").EnumerateArray().Select(e => e.GetString()).ToArray();
         Assert.Contains("spectrum/spectrum.tsv", outputs);
         Assert.Contains("figures/spectrum/A-B_plv_go-vs-stay_clusters.png", outputs);
+
+        // The report's methods paragraph names the spectrum and the cluster test with the numbers of this run: 12 trials
+        // per condition (24 alternating), 19 draws, so 20 labellings; the default level 0.05 is |z| > 1.96.
+        string methods = WebUtility.HtmlDecode(File.ReadAllText(Out("report.html")));
+        Assert.Contains("For the channel pairs B-A, A-C, the phase-locking value and magnitude-squared coherence were also computed at " +
+                        "6 frequencies (6, 8, 10, 12, 14, 16 Hz), by convolution with a unit-energy complex Morlet wavelet of 4 cycles at each " +
+                        "frequency (Tallon-Baudry et al. 1996), over the analysis window and in 9 time bins 0.2 s wide every 0.1 s (centres -0.15 to 0.65 s).", methods);
+        Assert.Contains("change from the baseline -0.2 to 0 s", methods);
+        Assert.Contains("The difference go minus stay in the phase-locking value of the pair A-B (12 and 12 trials) was tested over the " +
+                        "frequency-by-time map by a cluster-based permutation test (Maris & Oostenveld 2007): 19 random permutations of the condition " +
+                        $"labels of the pooled trials keeping both group sizes; seed {SpectrumRunner.ClusterSeed(42)}.", methods);
+        Assert.Contains("over all 20 labellings", methods);
+        Assert.Contains("(|z| > 1.96, two-sided pointwise level 0.05)", methods);
+        Assert.Contains("Maris E, Oostenveld R (2007). Nonparametric statistical testing of EEG- and MEG-data. J Neurosci Methods 164:177-190.", methods);
     }
 
     [Fact]
@@ -110,6 +125,10 @@ public class SpectrumRunTests
             """);
         var outcome = AnalysisRunner.Run(PlanReader.Read(path));
         var rows = TableParsing.Read(Path.Combine(outcome.OutputFolder, "spectrum/spectrum.tsv"), '\t');
+        string methods = WebUtility.HtmlDecode(File.ReadAllText(Path.Combine(outcome.OutputFolder, "report.html")));
+        Assert.Contains("For every channel pair, the weighted phase-lag index was also computed at 4 frequencies (8, 10, 12, 20 Hz)", methods);
+        Assert.Contains("(Slepian 1978) of half-bandwidth 4 Hz (", methods);
+        Assert.DoesNotContain("cluster-based permutation test", methods);
         // Plan measures plv, wpli, aec: multitaper offers wpli of them. 2 conditions x 6 pairs x 1 measure x 4 frequencies.
         Assert.Equal(1 + 2 * 6 * 4, rows.Count);
         Assert.All(rows.Skip(1), r => Assert.Equal("wpli", r[3]));

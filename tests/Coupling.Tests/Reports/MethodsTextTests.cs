@@ -68,6 +68,9 @@ public class MethodsTextTests
         Assert.DoesNotContain("Kaiser", m.Paragraph);
         Assert.DoesNotContain("Fisher", m.Paragraph);
         Assert.DoesNotContain("condition labels", m.Paragraph);
+        Assert.DoesNotContain("also computed at", m.Paragraph);
+        Assert.DoesNotContain("cluster", m.Paragraph);
+        Assert.DoesNotContain("Maris", string.Concat(m.References));
         Assert.Equal(5, m.References.Count); // wavelet, PPC, imaginary coherency, permutation p, FDR
         Assert.StartsWith("Tallon-Baudry C", m.References[0], StringComparison.Ordinal);
     }
@@ -103,6 +106,104 @@ public class MethodsTextTests
         Assert.DoesNotContain("surrogates", m.Paragraph);
         Assert.DoesNotContain(MethodSources.Of("fdr-bh").Reference, m.References);
         Assert.DoesNotContain(MethodSources.Of("permutation-p").Reference, m.References);
+    }
+
+    /// <summary>A manifest as the results writer builds it, for a plan with conditions go and stop.</summary>
+    private static Manifest SpectrumManifest(string planText, JsonObject recorded) => new()
+    {
+        Tool = new ToolInfo("coupling", "1.0.0", ".NET 10.0.0", "Linux", new Dictionary<string, string>()),
+        Started = DateTimeOffset.UnixEpoch,
+        Finished = DateTimeOffset.UnixEpoch,
+        Plan = JsonSerializer.SerializeToNode(PlanReader.Parse(new StringReader(planText), "/data/plan.yaml"), PlanJson),
+        Seed = 7,
+        Decompositions = [new DecompositionInfo("fir-hilbert", "alpha", new Dictionary<string, double> { ["filter_taps"] = 401 })],
+        Conditions = [new ConditionTrials("go", 30, []), new ConditionTrials("stop", 18, [])],
+        TimeSteps = [new BandTimeStep("alpha", 4, 0.016)],
+        Extra = new JsonObject { ["spectrum"] = recorded },
+    };
+
+    private const string SpectrumPlanHead = """
+        recording: rec.edf
+        conditions: { go: [go], stop: [stop] }
+        trial: { start: -1, end: 2 }
+        window: { start: 0.25, end: 1.25 }
+        bands: { alpha: [8, 12] }
+        measures: [plv, coherence]
+        surrogates: 199
+        seed: 7
+        output: out
+
+        """;
+
+    [Fact]
+    public void A_wavelet_spectrum_with_a_cluster_test_names_its_settings_and_the_test_as_implemented()
+    {
+        // The recorded node has the shape SpectrumWriter.ManifestNode writes: trial counts 30 and 18, 499 draws, the
+        // two-sided level 0.01 as |z| > 2.576 (the standard normal 0.995 quantile, from memory; the text only rounds it).
+        var m = MethodsText.From(SpectrumManifest(SpectrumPlanHead + """
+            evoked: subtract
+            spectrum:
+              frequencies: { from: 4, to: 12, step: 2 }
+              cycles: 5
+              pairs: [[C3, C4]]
+              measures: [ppc, coherence]
+              time: { width: 0.4, step: 0.2, baseline: { start: -0.6, end: -0.2 } }
+              cluster_test: { pair: [C3, C4], measure: coherence, conditions: [go, stop], threshold: 0.01, draws: 499 }
+            """, new JsonObject
+        {
+            ["method"] = "morlet",
+            ["cycles"] = 5.0,
+            ["time_bins_s"] = new JsonArray(-0.8, -0.6, -0.4, -0.2, 0.0, 0.2),
+            ["cluster_test"] = new JsonObject
+            {
+                ["seed"] = 123456789012UL, ["draws"] = 499, ["threshold"] = 0.01, ["z_threshold"] = 2.5758293035489004,
+                ["trials"] = new JsonArray(30, 18),
+            },
+        }));
+        Assert.Contains("For the channel pair C3-C4, the pairwise phase consistency and magnitude-squared coherence were also computed at " +
+                        "5 frequencies (4, 6, 8, 10, 12 Hz), by convolution with a unit-energy complex Morlet wavelet of 5 cycles at each frequency " +
+                        "(Tallon-Baudry et al. 1996), over the analysis window and in 6 time bins 0.4 s wide every 0.2 s (centres -0.8 to 0.2 s).", m.Paragraph);
+        Assert.Contains("change from the baseline -0.6 to -0.2 s: the value less the mean of the bins centred in the baseline, per frequency.", m.Paragraph);
+        Assert.Contains("The difference go minus stop in magnitude-squared coherence of the pair C3-C4 (30 and 18 trials) was tested over the " +
+                        "frequency-by-time map by a cluster-based permutation test (Maris & Oostenveld 2007): 499 random permutations of the condition " +
+                        "labels of the pooled trials keeping both group sizes; seed 123456789012; in every labelling, the observed one included, " +
+                        "each group's mean over its trials (the evoked response) was removed from its trials.", m.Paragraph);
+        Assert.Contains("over all 500 labellings", m.Paragraph);
+        Assert.Contains("(|z| > 2.576, two-sided pointwise level 0.01)", m.Paragraph);
+        Assert.Contains("sum of its standardised differences", m.Paragraph);
+        Assert.Contains("largest absolute mass among its clusters", m.Paragraph);
+        Assert.Contains("p = (1 + b)/(M + 1)", m.Paragraph);
+        Assert.Contains("family-wise error over the whole map", m.Paragraph);
+        Assert.Contains(MethodSources.Of("label-permutation").Reference, m.References);
+        Assert.Single(m.References, r => r.StartsWith("Maris E, Oostenveld R (2007). Nonparametric statistical testing of EEG- and MEG-data. J Neurosci Methods 164:177-190.", StringComparison.Ordinal));
+        Assert.DoesNotContain(m.References, r => r.StartsWith("Slepian", StringComparison.Ordinal));
+    }
+
+    [Fact]
+    public void A_multitaper_spectrum_without_time_or_test_cites_the_tapers_and_names_no_cluster_test()
+    {
+        var m = MethodsText.From(SpectrumManifest(SpectrumPlanHead + """
+            spectrum:
+              method: multitaper
+              half_bandwidth: 4
+              frequencies: [8, 10, 12, 20]
+              measures: [coherence]
+            """, new JsonObject
+        {
+            ["method"] = "multitaper",
+            ["half_bandwidth_hz"] = 4.0,
+            ["tapers_per_window"] = new JsonArray(7),
+        }));
+        Assert.Contains("For every channel pair, magnitude-squared coherence was also computed at 4 frequencies (8, 10, 12, 20 Hz), from the " +
+                        "Fourier coefficients of each trial's mean-removed segment under discrete prolate spheroidal (DPSS) tapers (Slepian 1978) " +
+                        "of half-bandwidth 4 Hz (7 tapers over the analysis window), each trial and taper counting as one observation " +
+                        "(the multitaper method; Thomson 1982), over the analysis window.", m.Paragraph);
+        Assert.DoesNotContain("cluster", m.Paragraph);
+        Assert.DoesNotContain("baseline", m.Paragraph);
+        Assert.DoesNotContain("evoked response) was removed", m.Paragraph);
+        Assert.Contains("Slepian D (1978). Prolate spheroidal wave functions, Fourier analysis, and uncertainty V: the discrete case. Bell Syst Tech J 57:1371-1430.", m.References);
+        Assert.Contains("Thomson DJ (1982). Spectrum estimation and harmonic analysis. Proc IEEE 70:1055-1096.", m.References);
+        Assert.DoesNotContain(MethodSources.Of("label-permutation").Reference, m.References);
     }
 
     [Fact]
