@@ -14,6 +14,13 @@ namespace Coupling.Pipeline;
 /// </remarks>
 public static class SpectrumWriter
 {
+    /// <summary>The manifest's <c>cluster_test.evoked</c> when the trials were tested as recorded.</summary>
+    public const string EvokedKept = "kept";
+
+    /// <summary>The manifest's <c>cluster_test.evoked</c> when each group of every labelling had its own trial mean removed
+    /// inside the test (docs/methods.md, section 12).</summary>
+    public const string EvokedRemovedPerGroup = "removed per group in every labelling";
+
     /// <summary>Writes everything; returns the paths written, relative to the folder, with '/' separators.</summary>
     /// <param name="spectrum">The results.</param>
     /// <param name="figures">Whether figures are drawn.</param>
@@ -90,6 +97,7 @@ public static class SpectrumWriter
                 ["threshold"] = test.Threshold,
                 ["z_threshold"] = test.ZThreshold,
                 ["trials"] = new JsonArray(test.TrialsA, test.TrialsB),
+                ["evoked"] = test.EvokedRemoved ? EvokedRemovedPerGroup : EvokedKept,
             };
         return node;
     }

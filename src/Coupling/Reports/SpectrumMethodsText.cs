@@ -53,7 +53,11 @@ internal static class SpectrumMethodsText
         double threshold = recorded?["threshold"]?.GetValue<double>() ?? Num(test, "threshold");
         string z = recorded?["z_threshold"] is JsonValue zv ? $"|z| > {zv.GetValue<double>().ToString("0.###", Inv)}, " : "";
         string map = timeResolved ? "frequency-by-time map" : "map over frequencies";
-        string evoked = plan["subtract_evoked"]?.GetValue<bool>() == true
+        // What the test recorded it did; a manifest without that field falls back on the plan, which decided it.
+        bool removed = recorded?["evoked"] is JsonValue e
+            ? e.GetValue<string>() == Pipeline.SpectrumWriter.EvokedRemovedPerGroup
+            : plan["subtract_evoked"]?.GetValue<bool>() == true;
+        string evoked = removed
             ? "; in every labelling, the observed one included, each group's mean over its trials (the evoked response) was removed from its trials"
             : "";
         return $"The difference {a} minus {b} in {MethodsText.MeasureName(test["measure"]?.GetValue<string>() ?? "")} of the pair " +

@@ -20,6 +20,8 @@ namespace Coupling.Statistics;
 /// <param name="Draws">Number of label permutations.</param>
 /// <param name="Threshold">Cluster-forming threshold as a two-sided pointwise level.</param>
 /// <param name="ZThreshold">The same as a bound on |z|.</param>
+/// <param name="EvokedRemoved">Whether each group of every labelling had its own trial mean (the evoked response) removed
+/// inside the test; false when the trials were tested as given.</param>
 public sealed record ClusterTestResult(
     string ChannelA,
     string ChannelB,
@@ -36,4 +38,5 @@ public sealed record ClusterTestResult(
     IReadOnlyList<TimeFrequencyCluster> Clusters,
     int Draws,
     double Threshold,
-    double ZThreshold);
+    double ZThreshold,
+    bool EvokedRemoved = false);

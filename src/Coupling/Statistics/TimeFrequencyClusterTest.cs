@@ -109,7 +109,7 @@ public static class TimeFrequencyClusterTest
         for (int i = 0; i < cells; i++) labels[i] = renumber[labels[i]];
         return new ClusterTestResult(a.Channels[0], a.Channels[1], MeasureCatalog.Key(measure), conditionA, conditionB,
             a.TrialCount, b.TrialCount, a.Frequencies, a.Bins.Select(x => x.Centre).ToArray(), maps.AsSpan(0, cells).ToArray(),
-            z.AsSpan(0, cells).ToArray(), labels, clusters, draws, threshold, zThreshold);
+            z.AsSpan(0, cells).ToArray(), labels, clusters, draws, threshold, zThreshold, subtractEvoked);
     }
 
     /// <summary>

@@ -84,6 +84,7 @@ public class SpectrumClusterEvokedTests
         var spec = Spec(method, measure, 9);
         const ulong seed = 3;
         var result = SpectrumRunner.TestClusters(spec, spec.ClusterTest!, Bins, Copy(a), Copy(b), subtractEvoked: true, seed, 1, null, default);
+        Assert.True(result.EvokedRemoved);
 
         int total = a.TrialCount + b.TrialCount, cells = Frequencies.Length * Bins.Count;
         var maps = new double[10][];
@@ -124,6 +125,7 @@ public class SpectrumClusterEvokedTests
         var spec = Spec(method, Measure.Coherence, 19);
         var kept = SpectrumRunner.TestClusters(spec, spec.ClusterTest!, Bins, Copy(a), Copy(b), subtractEvoked: false, 5, 1, null, default);
         var direct = TimeFrequencyClusterTest.Run(Build(method, a), Build(method, b), Measure.Coherence, "a", "b", 19, 5, 0.05, maxThreads: 1);
+        Assert.False(kept.EvokedRemoved);
         Assert.Equal(Bytes(direct), Bytes(kept));
     }
 

@@ -93,6 +93,7 @@ public class SpectrumRunTests
         Assert.Equal("morlet", node.GetProperty("method").GetString());
         Assert.Equal(9, node.GetProperty("time_bins_s").GetArrayLength());
         Assert.Equal(SpectrumRunner.ClusterSeed(42), node.GetProperty("cluster_test").GetProperty("seed").GetUInt64());
+        Assert.Equal("kept", node.GetProperty("cluster_test").GetProperty("evoked").GetString());
         var outputs = manifest.RootElement.GetProperty("outputs").EnumerateArray().Select(e => e.GetString()).ToArray();
         Assert.Contains("spectrum/spectrum.tsv", outputs);
         Assert.Contains("figures/spectrum/A-B_plv_go-vs-stay_clusters.png", outputs);
@@ -110,6 +111,30 @@ public class SpectrumRunTests
         Assert.Contains("over all 20 labellings", methods);
         Assert.Contains("(|z| > 1.96, two-sided pointwise level 0.05)", methods);
         Assert.Contains("Maris E, Oostenveld R (2007). Nonparametric statistical testing of EEG- and MEG-data. J Neurosci Methods 164:177-190.", methods);
+    }
+
+    [Fact]
+    public void With_evoked_subtract_the_manifest_and_methods_say_the_cluster_test_removed_each_groups_mean_in_every_labelling()
+    {
+        using var folder = new TempFolder();
+        string path = Write(folder, """
+            evoked: subtract
+            spectrum:
+              frequencies: [8, 10, 12]
+              cycles: 4
+              pairs: [[A, B]]
+              measures: [coherence]
+              time: { width: 0.2, step: 0.2 }
+              cluster_test: { pair: [A, B], measure: coherence, conditions: [go, stay], draws: 9 }
+            """);
+        var outcome = AnalysisRunner.Run(PlanReader.Read(path));
+        using var manifest = JsonDocument.Parse(File.ReadAllText(Path.Combine(outcome.OutputFolder, "manifest.json")));
+        var test = manifest.RootElement.GetProperty("extra").GetProperty("spectrum").GetProperty("cluster_test");
+        Assert.Equal("removed per group in every labelling", test.GetProperty("evoked").GetString());
+        string report = WebUtility.HtmlDecode(File.ReadAllText(Path.Combine(outcome.OutputFolder, "report.html")));
+        Assert.Contains("9 random permutations of the condition labels of the pooled trials keeping both group sizes; seed " +
+                        $"{SpectrumRunner.ClusterSeed(42)}; in every labelling, the observed one included, each group's mean over its trials " +
+                        "(the evoked response) was removed from its trials.", report);
     }
 
     [Fact]

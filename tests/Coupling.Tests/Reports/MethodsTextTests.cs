@@ -157,7 +157,7 @@ public class MethodsTextTests
             ["cluster_test"] = new JsonObject
             {
                 ["seed"] = 123456789012UL, ["draws"] = 499, ["threshold"] = 0.01, ["z_threshold"] = 2.5758293035489004,
-                ["trials"] = new JsonArray(30, 18),
+                ["trials"] = new JsonArray(30, 18), ["evoked"] = "removed per group in every labelling",
             },
         }));
         Assert.Contains("For the channel pair C3-C4, the pairwise phase consistency and magnitude-squared coherence were also computed at " +
