@@ -89,22 +89,8 @@ public static class AnalysisRunner
 
         var warnings = new List<string>(BandWarnings.For(plan, decompositions, input.SampleRate, input.EpochSamples));
         int pairs = Measures.PairIndex.Count(input.Channels.Count);
-        var floor = SurrogateFloor.Of(plan.Correction, plan.Q, pairs,
-            twoSidedOnly: plan.Measures.All(m => MeasureCatalog.TailOf(m) == TestTail.TwoSided));
-        int needed = floor.Needed;
-        if (plan.Surrogates > 0 && floor.Applies && plan.Surrogates < needed)
-        {
-            int k = (int)Math.Ceiling(floor.Multiplier * pairs / (plan.Q * (plan.Surrogates + 1)));
-            string reach = k > pairs
-                ? $"no pair can pass the correction whatever the data (that would take {k} pairs at that p, and only {pairs} are tested)"
-                : $"a pair can pass the correction only if at least {k} pairs reach that p";
-            warnings.Add(string.Create(CultureInfo.InvariantCulture,
-                $"With {plan.Surrogates} surrogates the smallest attainable p is {floor.Sides}/{plan.Surrogates + 1}{(floor.Sides == 2 ? " (two-sided tests)" : "")}; across {pairs} pairs at q = {plan.Q:G3} {reach}. " +
-                $"Use at least {needed} surrogates for a single coupled pair to be detectable, or a family-wise correction (max-statistic) or the Pareto tail."));
-        }
-        else if (plan.Surrogates > 0 && !floor.Applies && !plan.Correction.ParetoTail && plan.Surrogates < needed)
-            warnings.Add(string.Create(CultureInfo.InvariantCulture,
-                $"With {plan.Surrogates} surrogates the smallest attainable p is {floor.Sides}/{plan.Surrogates + 1}{(floor.Sides == 2 ? " (two-sided tests)" : "")}, above alpha = {plan.Q:G3}: no pair can be significant. Use at least {needed} surrogates."));
+        foreach (var floorWarning in new[] { SurrogateCountWarning.ForConditions(plan, pairs), SurrogateCountWarning.ForContrasts(plan, pairs) })
+            if (floorWarning is not null) warnings.Add(floorWarning);
         foreach (var w in warnings) onWarning?.Invoke(w);
 
         // Corrections that need the draws themselves (maxima, tails) are computed whole, not kept as resumable units;

@@ -58,6 +58,57 @@ public sealed class SurrogateCountWarningTests
         Assert.Contains("at least 239 surrogates", warning);
     }
 
+    /// <summary>The small study with 24 trials alternately go and stay and the contrast go vs stay.</summary>
+    private static string ContrastPlan(TempFolder folder, int surrogates, string extra = "")
+    {
+        string path = SpectrumRunTests.Write(folder, "contrasts: [[go, stay]]" + extra);
+        File.WriteAllText(path, File.ReadAllText(path).Replace("surrogates: 20", $"surrogates: {surrogates}", StringComparison.Ordinal));
+        return path;
+    }
+
+    [Fact]
+    public void A_contrast_with_too_few_label_permutations_is_warned_about_at_the_two_sided_floor()
+    {
+        // A contrast's p = min(1, 2·min(b_upper + 1, b_lower + 1)/(M + 1)) (Kulinskaya 2008, docs/methods.md section 7)
+        // cannot go below 2/(M+1): one pair among 6 at q = 0.05 needs 2/(M+1) ≤ 0.05/6 (Benjamini & Hochberg 1995), i.e.
+        // M ≥ 239. With M = 119 the per-condition tests (plv and wpli one-sided) are fine at 1/120 ≤ 0.05/6, the contrast
+        // is not: ceil(2·6 / (0.05·120)) = 2 pairs must reach p = 2/120 together.
+        using var folder = new TempFolder();
+        var outcome = AnalysisRunner.Run(PlanReader.Read(ContrastPlan(folder, 119)));
+        string warning = Assert.Single(outcome.Warnings);
+        Assert.StartsWith("Condition contrasts (go-vs-stay) are tested two-sided: with 119 surrogates the smallest attainable p of a difference is 2/120;", warning);
+        Assert.Contains("only if at least 2 pairs reach that p", warning);
+        Assert.Contains("at least 239 surrogates", warning);
+        Assert.Contains("smallest attainable p of a difference is 2/120", File.ReadAllText(Path.Combine(outcome.OutputFolder, "report.html")));
+    }
+
+    [Fact]
+    public void The_contrast_floor_is_met_at_twice_the_one_sided_count_and_absent_without_contrasts()
+    {
+        // 2/(M+1) ≤ 0.05/6 from M = 239 on (Benjamini & Hochberg 1995 with the two-sided floor, as above).
+        var plan = PlanReader.Parse(new StringReader(SmallStudy.PlanText(surrogates: 239, conditions: "{ go: [go], stay: [stay] }") +
+            "\ncontrasts: [[go, stay]]"), "/data/plan.yaml");
+        Assert.Null(SurrogateCountWarning.ForContrasts(plan, 6));
+        Assert.Contains("at least 239 surrogates", SurrogateCountWarning.ForContrasts(plan with { Surrogates = 238 }, 6));
+        Assert.Contains("smallest attainable p of a difference is 2/239", SurrogateCountWarning.ForContrasts(plan with { Surrogates = 238 }, 6));
+        Assert.Null(SurrogateCountWarning.ForContrasts(plan with { Contrasts = [], Surrogates = 10 }, 6));
+    }
+
+    [Fact]
+    public void Family_wise_maxima_keep_the_floor_at_one_over_m_plus_one_for_contrasts_and_two_sided_measures()
+    {
+        // The maximum statistic's p = (1 + #{d : max T_d ≥ T})/(M + 1) on the absolute studentised statistic (Nichols &
+        // Holmes 2002) reaches 1/(M+1) for two-sided tests too: alpha = 0.05 needs M ≥ 19, not 39.
+        var plan = PlanReader.Parse(new StringReader(SmallStudy.PlanText(surrogates: 19, conditions: "{ go: [go], stay: [stay] }")
+            .Replace("measures: [plv, wpli, aec]", "measures: [imag-coherency, aec]", StringComparison.Ordinal) +
+            "\ncontrasts: [[go, stay]]\ncorrection: { method: max-statistic, alpha: 0.05 }"), "/data/plan.yaml");
+        Assert.Null(SurrogateCountWarning.ForContrasts(plan, 6));
+        Assert.Null(SurrogateCountWarning.ForConditions(plan, 6));
+        string? warning = SurrogateCountWarning.ForContrasts(plan with { Surrogates = 18 }, 6);
+        Assert.Equal("Condition contrasts (go-vs-stay): with 18 surrogates the smallest attainable p of a difference is 1/19, above alpha = 0.05: " +
+                     "no pair can be significant. Use at least 19 surrogates.", warning);
+    }
+
     [Fact]
     public void Enough_surrogates_give_no_warning()
     {
