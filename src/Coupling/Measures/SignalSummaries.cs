@@ -1,4 +1,5 @@
 using System.Numerics;
+using System.Runtime.CompilerServices;
 using Coupling.Results;
 using Coupling.Spectral;
 
@@ -56,29 +57,8 @@ public static class SignalSummaries
             }
         }
         // Coherency sums: one channel a (its pairs with every b > a) per work item.
-        Parallel.For(0, channels - 1, new ParallelOptions { MaxDegreeOfParallelism = maxThreads ?? -1 }, a =>
-        {
-            int first = PairIndex.Of(a, a + 1, channels);
-            for (int t = 0; t < times; t++)
-            {
-                var ra = set.Row(t, a);
-                double powerA = rowPower[(long)t * channels + a];
-                for (int b = a + 1, k = first; b < channels; b++, k++)
-                {
-                    double denominator = Math.Sqrt(powerA * rowPower[(long)t * channels + b]);
-                    if (!(denominator > 0)) continue;
-                    var rb = set.Row(t, b);
-                    double re = 0, im = 0;
-                    for (int n = 0; n < trials; n++)
-                    {
-                        re += ra[n].Real * rb[n].Real + ra[n].Imaginary * rb[n].Imaginary;
-                        im += ra[n].Imaginary * rb[n].Real - ra[n].Real * rb[n].Imaginary;
-                    }
-                    sumRe[k] += re / denominator;
-                    sumIm[k] += im / denominator;
-                }
-            }
-        });
+        Parallel.For(0, channels - 1, new ParallelOptions { MaxDegreeOfParallelism = maxThreads ?? -1 },
+            a => AddCoherency(set, a, rowPower, sumRe, sumIm));
         double cells = (double)times * trials;
         for (int c = 0; c < channels; c++)
         {
@@ -93,5 +73,32 @@ public static class SignalSummaries
             lag[k] = PhaseLag.Milliseconds(phase[k], set.Band.Centre);
         }
         return new BandSignalSummary(condition, set.Band.Name, set.Band.Centre, trials, set.Channels, power, locking, phase, lag);
+    }
+
+    /// <summary>Adds, for channel a and every b &gt; a, Σ_t coherency(t) into the pair sums (time points in order).</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
+    private static void AddCoherency(NarrowbandSet set, int a, double[] rowPower, double[] sumRe, double[] sumIm)
+    {
+        int channels = set.ChannelCount, trials = set.TrialCount, times = set.TimeCount;
+        int first = PairIndex.Of(a, a + 1, channels);
+        for (int t = 0; t < times; t++)
+        {
+            var ra = set.Row(t, a);
+            double powerA = rowPower[(long)t * channels + a];
+            for (int b = a + 1, k = first; b < channels; b++, k++)
+            {
+                double denominator = Math.Sqrt(powerA * rowPower[(long)t * channels + b]);
+                if (!(denominator > 0)) continue;
+                var rb = set.Row(t, b);
+                double re = 0, im = 0;
+                for (int n = 0; n < trials; n++)
+                {
+                    re += ra[n].Real * rb[n].Real + ra[n].Imaginary * rb[n].Imaginary;
+                    im += ra[n].Imaginary * rb[n].Real - ra[n].Real * rb[n].Imaginary;
+                }
+                sumRe[k] += re / denominator;
+                sumIm[k] += im / denominator;
+            }
+        }
     }
 }

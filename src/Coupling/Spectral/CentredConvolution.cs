@@ -60,6 +60,7 @@ internal sealed class CentredConvolution
         for (int i = 0; i < n; i++) output[i] = new Complex(re[_delay + i], im[_delay + i]);
     }
 
+    [MethodImpl(MethodImplOptions.AggressiveInlining)]
     private static void Multiply(double[] re, double[] im, int k, double xr, double xi, double[] kr, double[] ki)
     {
         re[k] = xr * kr[k] - xi * ki[k];

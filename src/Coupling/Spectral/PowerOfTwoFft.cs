@@ -175,6 +175,7 @@ internal sealed class PowerOfTwoFft
         }
     }
 
+    [MethodImpl(MethodImplOptions.AggressiveInlining)]
     private void Combine(double zkr, double zki, double zqr, double zqi, int k, int tw, out double xr, out double xi)
     {
         double er = 0.5 * (zkr + zqr), ei = 0.5 * (zki - zqi);

@@ -84,11 +84,14 @@ public static class SurrogateTest
                 () => new Worker(prototype.CreateSibling()),
                 (worker, start, end, sink) =>
                 {
-                    int count = end - start;
-                    for (int i = 0; i < count; i++) TrialShuffle.Generate(seed, start + i, worker.Permutations[i]);
-                    PairwiseKernels.ComputeTogether(worker.Workspaces.AsSpan(0, count), worker.Permutations.AsSpan(0, count),
-                        worker.Values.AsSpan(0, count));
-                    for (int i = 0; i < count; i++) sink(start + i, worker.Values[i]);
+                    for (int group = start; group < end; group += worker.Workspaces.Length)
+                    {
+                        int count = Math.Min(worker.Workspaces.Length, end - group);
+                        for (int i = 0; i < count; i++) TrialShuffle.Generate(seed, group + i, worker.Permutations[i]);
+                        PairwiseKernels.ComputeTogether(worker.Workspaces.AsSpan(0, count), worker.Permutations.AsSpan(0, count),
+                            worker.Values.AsSpan(0, count));
+                        for (int i = 0; i < count; i++) sink(group + i, worker.Values[i]);
+                    }
                 },
                 maxThreads, progress, cancellationToken, observer);
         }
@@ -127,12 +130,18 @@ public static class SurrogateTest
                 $"condition '{condition}' has {trials} trials: at most {orders} distinct trial orders, but {draws} surrogates were asked.");
     }
 
-    /// <summary>One thread's workspaces, trial orders and values: one of each per draw of a chunk.</summary>
+    /// <summary>
+    /// One thread's workspaces, trial orders and values: one of each per draw computed together, up to a chunk's draws
+    /// while their sums take at most <see cref="TogetherBytes"/> (fewer at hundreds of channels).
+    /// </summary>
     private sealed class Worker
     {
+        private const long TogetherBytes = 16L << 20;
+
         public Worker(PairwiseWorkspace workspace)
         {
-            Workspaces = new PairwiseWorkspace[ChunkedDraws.DrawsPerChunk];
+            long sums = (long)workspace.Measures.Count * workspace.Tables.Stride * workspace.Tables.Stride * sizeof(double);
+            Workspaces = new PairwiseWorkspace[(int)Math.Clamp(TogetherBytes / sums, 1, ChunkedDraws.DrawsPerChunk)];
             Workspaces[0] = workspace;
             for (int i = 1; i < Workspaces.Length; i++) Workspaces[i] = workspace.CreateSibling();
             Permutations = Workspaces.Select(w => new int[w.Set.TrialCount]).ToArray();
