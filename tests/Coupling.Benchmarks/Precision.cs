@@ -31,8 +31,7 @@ public static class Precision
         var tests = new int[measures.Count];
         for (int ci = 0; ci < plan.Conditions.Count; ci++)
         {
-            var trials = input.Trials(plan.Conditions[ci], plan.Trial, pad);
-            if (plan.SubtractEvoked) Coupling.Trials.EvokedRemoval.SubtractInPlace(trials);
+            var (trials, _) = input.TrialsWithoutEvoked(plan.Conditions[ci], plan.Trial, pad, plan.SubtractEvoked);
             for (int bi = 0; bi < decompositions.Length; bi++)
             {
                 int step = plan.Decomposition.TimeStep ?? TimeStep.Default(decompositions[bi].Info, input.SampleRate);

@@ -105,9 +105,8 @@ public static class AnalysisRunner
         var kept = units?.KeptUnits(plan) ?? [];
         for (int ci = 0; ci < plan.Conditions.Count; ci++)
         {
-            TrialSet? trials = input.Trials(plan.Conditions[ci], plan.Trial, pad);
-            var removedMean = plan.SubtractEvoked ? EvokedRemoval.Mean(trials) : null;
-            if (plan.SubtractEvoked) EvokedRemoval.SubtractInPlace(trials);
+            var (cutTrials, removedMean) = input.TrialsWithoutEvoked(plan.Conditions[ci], plan.Trial, pad, plan.SubtractEvoked);
+            TrialSet? trials = cutTrials;
             summaries.Add(new ConditionSummary(trials.Condition, trials.TrialCount, trials.DroppedTrials));
             string conditionName = trials.Condition;
             var channels = trials.Channels;

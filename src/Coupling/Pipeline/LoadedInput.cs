@@ -158,4 +158,27 @@ public sealed class LoadedInput
             : new TrialSet(set.Condition, set.Channels, set.SampleRate, set.TrialCount, set.SampleCount, set.PadSamples, set.SpanStart,
                 set.Data, set.Onsets, [.. set.DroppedTrials, .. unusable]);
     }
+
+    /// <summary>
+    /// The padded trials of <paramref name="condition"/> as <see cref="Trials"/> cuts them, with the condition's evoked
+    /// response removed when <paramref name="subtractEvoked"/> is set: the trial mean, per channel and sample, padding
+    /// included, subtracted from every trial (<see cref="EvokedRemoval.SubtractInPlace(TrialSet, TrialSet)"/>).
+    /// </summary>
+    /// <param name="condition">The condition.</param>
+    /// <param name="span">The trial span.</param>
+    /// <param name="padSamples">Padding samples at each end of every trial.</param>
+    /// <param name="subtractEvoked">Whether to subtract the trial mean.</param>
+    /// <returns>
+    /// The trials and the mean subtracted from them as a set of one trial (<see cref="EvokedRemoval.Mean"/>); the mean is
+    /// null when nothing was subtracted (no subtraction asked, or no trial).
+    /// </returns>
+    public (TrialSet Trials, TrialSet? RemovedMean) TrialsWithoutEvoked(ConditionSpec condition, TimeRange span, int padSamples,
+        bool subtractEvoked)
+    {
+        var trials = Trials(condition, span, padSamples);
+        if (!subtractEvoked || trials.TrialCount == 0) return (trials, null);
+        var mean = EvokedRemoval.Mean(trials);
+        EvokedRemoval.SubtractInPlace(trials, mean);
+        return (trials, mean);
+    }
 }

@@ -54,7 +54,7 @@ public static class SpectrumRunner
         {
             cancellationToken.ThrowIfCancellationRequested();
             progress?.Report(new RunProgress($"{condition.Name}: spectrum", 0, 0));
-            var trials = SelectChannels(Cut(plan, input, condition, pad), used);
+            var trials = SelectChannels(input.TrialsWithoutEvoked(condition, plan.Trial, pad, plan.SubtractEvoked).Trials, used);
             var cells = InPlan(plan, "spectrum", () => Build(spec, trials, windowBins, workers));
             if (tapers.Count == 0 && spec.Method == "multitaper") tapers.Add(cells.ObservationsPerTrial);
             spectrum.AddRange(TimeFrequencyConnectivity.Compute(cells, condition.Name, local, spec.Measures, null));
@@ -112,13 +112,6 @@ public static class SpectrumRunner
         spec.Method == "morlet"
             ? MorletCells.Build(trials, spec.Frequencies, spec.Cycles, bins, workers)
             : MultitaperCells.Build(trials, spec.Frequencies, spec.HalfBandwidthHz, bins);
-
-    private static TrialSet Cut(Plan plan, LoadedInput input, ConditionSpec condition, int pad)
-    {
-        var trials = input.Trials(condition, plan.Trial, pad);
-        if (plan.SubtractEvoked) EvokedRemoval.SubtractInPlace(trials);
-        return trials;
-    }
 
     /// <summary>The trials of channels <paramref name="channels"/> only (indices into the set's channels, in that order).</summary>
     private static TrialSet SelectChannels(TrialSet trials, IReadOnlyList<int> channels)

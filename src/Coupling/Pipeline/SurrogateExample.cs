@@ -59,8 +59,7 @@ public static class SurrogateExample
     {
         int ci = Enumerable.Range(0, plan.Conditions.Count).First(i => plan.Conditions[i].Name == result.Condition);
         int bi = Enumerable.Range(0, plan.Bands.Count).First(i => plan.Bands[i].Name == result.Band);
-        var trials = input.Trials(plan.Conditions[ci], plan.Trial, pad);
-        if (plan.SubtractEvoked) EvokedRemoval.SubtractInPlace(trials);
+        var (trials, _) = input.TrialsWithoutEvoked(plan.Conditions[ci], plan.Trial, pad, plan.SubtractEvoked);
         var narrowband = NarrowbandExtractor.Extract(trials, decomposition, plan.Window, step, workers);
         var (a, b) = PairIndex.Channels(pair, result.Channels.Count);
         return SurrogateDraws.ForPair(narrowband, MeasureCatalog.Parse(result.Measure), a, b, plan.Surrogates, Seeds.For(plan.Seed, ci, bi),

@@ -20,7 +20,21 @@ public static class EvokedRemoval
     {
         ArgumentNullException.ThrowIfNull(trials);
         if (trials.TrialCount == 0) return;
-        var mean = Mean(trials);
+        SubtractInPlace(trials, Mean(trials));
+    }
+
+    /// <summary>
+    /// Subtracts <paramref name="mean"/>, a set of one trial as <see cref="Mean"/> returns for these trials, from every
+    /// trial, padding included; with the set's own mean this is <see cref="SubtractInPlace(TrialSet)"/>.
+    /// Changes the trial set's data in place.
+    /// </summary>
+    /// <exception cref="ArgumentException"><paramref name="mean"/> is not one trial of the set's channels and samples.</exception>
+    public static void SubtractInPlace(TrialSet trials, TrialSet mean)
+    {
+        ArgumentNullException.ThrowIfNull(trials);
+        ArgumentNullException.ThrowIfNull(mean);
+        if (mean.TrialCount != 1 || mean.ChannelCount != trials.ChannelCount || mean.SampleCount != trials.SampleCount)
+            throw new ArgumentException("The mean must be one trial with the set's channels and samples.", nameof(mean));
         for (int ch = 0; ch < trials.ChannelCount; ch++)
         {
             var m = mean.Trial(0, ch);
@@ -34,7 +48,7 @@ public static class EvokedRemoval
 
     /// <summary>
     /// The trial mean of <paramref name="trials"/> (per channel and sample, padding included) as a set of one trial with
-    /// the same channels, rate, padding and span: what <see cref="SubtractInPlace"/> subtracts.
+    /// the same channels, rate, padding and span: what <see cref="SubtractInPlace(TrialSet)"/> subtracts.
     /// </summary>
     /// <exception cref="ArgumentException">The set holds no trial.</exception>
     public static TrialSet Mean(TrialSet trials)

@@ -103,6 +103,36 @@ public class FigureTests
     }
 
     [Fact]
+    public void A_dashed_edge_is_written_to_svg_as_separate_dashes_of_the_dash_pattern()
+    {
+        // FourChannels: Pz-Fz (-0.3) is the one negative significant edge, so the one dashed edge (NetworkFigure draws
+        // negative edges dashed); its colour on the diverging scale up to the largest |value| 0.5. The SVG device of the
+        // pinned SkiaSharp writes a dashed stroke as one filled path of one rectangle per dash; a device that drops the
+        // dash would write a single stroked line in that colour instead.
+        using var dir = new TempFolder();
+        NetworkFigure.Save(SampleResults.FourChannels(), dir["n.svg"], 500, 400);
+        var colour = EdgeColorScale.Diverging(0.5).ColorOf(-0.3);
+        string hex = $"#{colour.R:X2}{colour.G:X2}{colour.B:X2}";
+        var paths = System.Xml.Linq.XDocument.Load(dir["n.svg"]).Descendants(System.Xml.Linq.XName.Get("path", "http://www.w3.org/2000/svg")).ToArray();
+        Assert.DoesNotContain(paths, p => string.Equals((string?)p.Attribute("stroke"), hex, StringComparison.OrdinalIgnoreCase));
+        var dashed = Assert.Single(paths, p => string.Equals((string?)p.Attribute("fill"), hex, StringComparison.OrdinalIgnoreCase));
+        var dashes = ((string)dashed.Attribute("d")!).Split('M', StringSplitOptions.RemoveEmptyEntries);
+        Assert.True(dashes.Length >= 3, $"{dashes.Length} dashes");
+        float on = ScottPlot.LinePattern.Dashed.Intervals[0];
+        int whole = 0;
+        foreach (var dash in dashes)
+        {
+            var corners = dash.Split('L').Select(xy => xy.Trim().Split(' ').Select(v => double.Parse(v, System.Globalization.CultureInfo.InvariantCulture)).ToArray()).ToArray();
+            Assert.Equal(4, corners.Length);
+            double length = Math.Sqrt(Math.Pow(corners[1][0] - corners[0][0], 2) + Math.Pow(corners[1][1] - corners[0][1], 2));
+            // Corners are written with 6 significant digits (about 1e-3 px here); the last dash may be cut by the edge's end.
+            Assert.True(length <= on + 0.01, $"dash of {length} px, pattern {on} px");
+            if (length >= on - 0.01) whole++;
+        }
+        Assert.True(whole >= 2, $"{whole} dashes of the pattern's {on} px");
+    }
+
+    [Fact]
     public void A_figure_name_that_is_neither_png_nor_svg_is_refused_before_anything_is_written()
     {
         using var dir = new TempFolder();

@@ -70,4 +70,18 @@ public sealed class EvokedRemovalTests
         // 15 · 2^-53 · 150 ≈ 2.5e-13.
         Assert.All(set.Data, v => Assert.True(Math.Abs(v) <= 15 * Math.Pow(2, -53) * 150, $"residual {v}"));
     }
+
+    [Fact]
+    public void Subtracting_a_given_mean_is_the_same_as_subtracting_the_sets_own_and_another_shape_is_refused()
+    {
+        var own = Set(Noise(7));
+        var given = Set(Noise(7));
+        EvokedRemoval.SubtractInPlace(own);
+        EvokedRemoval.SubtractInPlace(given, EvokedRemoval.Mean(given));
+        Assert.Equal(own.Data, given.Data);
+
+        var other = new TrialSet("cue", ["A", "B"], 100, 1, Samples, 4, -0.2, new double[2 * Samples], [0.0], []);
+        Assert.Throws<ArgumentException>(() => EvokedRemoval.SubtractInPlace(own, other));
+        Assert.Throws<ArgumentException>(() => EvokedRemoval.SubtractInPlace(own, own));
+    }
 }
