@@ -22,6 +22,14 @@ internal static class SpectrumMethodsText
         if (plan["spectrum"] is not JsonObject spec) return [];
         var recorded = manifest.Extra?["spectrum"];
         var parts = new List<string>();
+        // Pairs are named as the tables name them: the channel that comes first in the recording first.
+        var order = (manifest.Extra?["channels"] as JsonArray ?? []).Select(c => c?.GetValue<string>() ?? "").ToList();
+        string PairName(JsonNode? pair)
+        {
+            string a = pair?["a"]?.ToString() ?? "", b = pair?["b"]?.ToString() ?? "";
+            int ia = order.IndexOf(a), ib = order.IndexOf(b);
+            return ia >= 0 && ib >= 0 && ib < ia ? $"{b}-{a}" : $"{a}-{b}";
+        }
 
         var pairs = spec["pairs"] is JsonArray listed
             ? $"the channel pair{(listed.Count == 1 ? "" : "s")} {string.Join(", ", listed.Select(PairName))}"
@@ -40,11 +48,12 @@ internal static class SpectrumMethodsText
             parts.Add($"Time-resolved values were expressed as their change from the baseline {N(Num(baseline, "start"))} to {N(Num(baseline, "end"))} s: " +
                       "the value less the mean of the bins centred in the baseline, per frequency.");
 
-        if (spec["cluster_test"] is JsonObject test) parts.Add(ClusterTest(test, recorded?["cluster_test"], plan, spec["time"] is not null, cite));
+        if (spec["cluster_test"] is JsonObject test) parts.Add(ClusterTest(test, recorded?["cluster_test"], plan, spec["time"] is not null, cite, PairName));
         return parts;
     }
 
-    private static string ClusterTest(JsonObject test, JsonNode? recorded, JsonObject plan, bool timeResolved, Func<string, string> cite)
+    private static string ClusterTest(JsonObject test, JsonNode? recorded, JsonObject plan, bool timeResolved, Func<string, string> cite,
+        Func<JsonNode?, string> pairName)
     {
         string a = test["condition_a"]?.GetValue<string>() ?? "A", b = test["condition_b"]?.GetValue<string>() ?? "B";
         string trials = recorded?["trials"] is JsonArray { Count: 2 } t ? $" ({t[0]} and {t[1]} trials)" : "";
@@ -61,7 +70,7 @@ internal static class SpectrumMethodsText
             ? "; in every labelling, the observed one included, each group's mean over its trials (the evoked response) was removed from its trials"
             : "";
         return $"The difference {a} minus {b} in {MethodsText.MeasureName(test["measure"]?.GetValue<string>() ?? "")} of the pair " +
-               $"{PairName(test["pair"])}{trials} was tested over the {map} by a cluster-based permutation test ({cite("cluster-permutation")}): " +
+               $"{pairName(test["pair"])}{trials} was tested over the {map} by a cluster-based permutation test ({cite("cluster-permutation")}): " +
                $"{draws.ToString(Inv)} random permutations of the condition labels of the pooled trials keeping both group sizes{seed}{evoked}. " +
                $"At each cell the difference was standardised by its mean and standard deviation over all {(draws + 1).ToString(Inv)} labellings; " +
                $"cells beyond the threshold ({z}two-sided pointwise level {N(threshold)}) that share an edge and a sign formed clusters, " +
@@ -93,8 +102,6 @@ internal static class SpectrumMethodsText
         <= 12 => $"{f.Count} frequencies ({string.Join(", ", f.Select(N))} Hz)",
         _ => $"{f.Count} frequencies from {N(f[0])} to {N(f[^1])} Hz",
     };
-
-    private static string PairName(JsonNode? pair) => $"{pair?["a"]}-{pair?["b"]}";
 
     private static double Num(JsonNode? node, string key) => node?[key]?.GetValue<double>() ?? double.NaN;
 

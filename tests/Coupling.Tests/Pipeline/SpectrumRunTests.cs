@@ -98,10 +98,11 @@ public class SpectrumRunTests
         Assert.Contains("spectrum/spectrum.tsv", outputs);
         Assert.Contains("figures/spectrum/A-B_plv_go-vs-stay_clusters.png", outputs);
 
-        // The report's methods paragraph names the spectrum and the cluster test with the numbers of this run: 12 trials
-        // per condition (24 alternating), 19 draws, so 20 labellings; the default level 0.05 is |z| > 1.96.
+        // The report's methods paragraph names the spectrum (pairs as the tables name them: [B, A] as A-B) and the
+        // cluster test with the numbers of this run: 12 trials per condition (24 alternating), 19 draws, so 20
+        // labellings; the default level 0.05 is |z| > 1.96.
         string methods = WebUtility.HtmlDecode(File.ReadAllText(Out("report.html")));
-        Assert.Contains("For the channel pairs B-A, A-C, the phase-locking value and magnitude-squared coherence were also computed at " +
+        Assert.Contains("For the channel pairs A-B, A-C, the phase-locking value and magnitude-squared coherence were also computed at " +
                         "6 frequencies (6, 8, 10, 12, 14, 16 Hz), by convolution with a unit-energy complex Morlet wavelet of 4 cycles at each " +
                         "frequency (Tallon-Baudry et al. 1996), over the analysis window and in 9 time bins 0.2 s wide every 0.1 s (centres -0.15 to 0.65 s).", methods);
         Assert.Contains("change from the baseline -0.2 to 0 s", methods);

@@ -109,7 +109,7 @@ public class MethodsTextTests
     }
 
     /// <summary>A manifest as the results writer builds it, for a plan with conditions go and stop.</summary>
-    private static Manifest SpectrumManifest(string planText, JsonObject recorded) => new()
+    private static Manifest SpectrumManifest(string planText, JsonObject recorded, JsonArray? channels = null) => new()
     {
         Tool = new ToolInfo("coupling", "1.0.0", ".NET 10.0.0", "Linux", new Dictionary<string, string>()),
         Started = DateTimeOffset.UnixEpoch,
@@ -119,7 +119,7 @@ public class MethodsTextTests
         Decompositions = [new DecompositionInfo("fir-hilbert", "alpha", new Dictionary<string, double> { ["filter_taps"] = 401 })],
         Conditions = [new ConditionTrials("go", 30, []), new ConditionTrials("stop", 18, [])],
         TimeSteps = [new BandTimeStep("alpha", 4, 0.016)],
-        Extra = new JsonObject { ["spectrum"] = recorded },
+        Extra = channels is null ? new JsonObject { ["spectrum"] = recorded } : new JsonObject { ["spectrum"] = recorded, ["channels"] = channels },
     };
 
     private const string SpectrumPlanHead = """
@@ -177,6 +177,22 @@ public class MethodsTextTests
         Assert.Contains(MethodSources.Of("label-permutation").Reference, m.References);
         Assert.Single(m.References, r => r.StartsWith("Maris E, Oostenveld R (2007). Nonparametric statistical testing of EEG- and MEG-data. J Neurosci Methods 164:177-190.", StringComparison.Ordinal));
         Assert.DoesNotContain(m.References, r => r.StartsWith("Slepian", StringComparison.Ordinal));
+    }
+
+    [Fact]
+    public void Spectrum_pairs_are_named_in_the_recording_s_channel_order_as_the_tables_name_them()
+    {
+        var m = MethodsText.From(SpectrumManifest(SpectrumPlanHead + """
+            spectrum:
+              frequencies: [10]
+              cycles: 5
+              pairs: [[C4, C3]]
+              measures: [coherence]
+              cluster_test: { pair: [C4, C3], measure: coherence, conditions: [go, stop], draws: 99 }
+            """, new JsonObject { ["method"] = "morlet", ["cycles"] = 5.0 }, new JsonArray("C3", "C4", "Pz")));
+        Assert.Contains("For the channel pair C3-C4,", m.Paragraph);
+        Assert.Contains("of the pair C3-C4 was tested", m.Paragraph);
+        Assert.DoesNotContain("C4-C3", m.Paragraph);
     }
 
     [Fact]
