@@ -57,7 +57,9 @@ public static class PlanCheck
         return new PlanPreview(plan.Source, plan.Recording, input.SampleRate, input.Channels.Select(c => c.Label).ToArray(), conditions, bands,
             units, kept.KeptUnits(plan), plan.Surrogates, pairs, SurrogateFloor.Of(plan.Correction, plan.Q, pairs,
                 twoSidedOnly: plan.Measures.All(m => MeasureCatalog.TailOf(m) == TestTail.TwoSided)).Needed, plan.Output,
-            BandWarnings.For(plan, decompositions, input.SampleRate, input.EpochSamples));
+            BandWarnings.For(plan, decompositions, input.SampleRate, input.EpochSamples)
+                .Concat(SurrogateCountWarning.ForContrasts(plan, pairs) is { } contrastWarning ? [contrastWarning] : [])
+                .ToArray());
     }
 
     private static void InPlan(Plan plan, string key, Action check)

@@ -15,7 +15,7 @@ namespace Coupling.Pipeline;
 /// ⌈pairs / q⌉ − 1 for Benjamini-Hochberg (its smallest p, 1/(M + 1), must reach q / pairs), ⌈c(m)·pairs / q⌉ − 1 for
 /// Benjamini-Yekutieli, ⌈1/alpha⌉ − 1 for the family-wise corrections and none, 1 with the Pareto tail.</param>
 /// <param name="Output">The results folder.</param>
-/// <param name="Warnings">Warnings about the bands that the run would give too (e.g. too few cycles in the window).</param>
+/// <param name="Warnings">Warnings the run would give too: about the bands (e.g. too few cycles in the window) and about too few surrogates for the condition contrasts.</param>
 public sealed record PlanPreview(
     string Plan,
     string Recording,

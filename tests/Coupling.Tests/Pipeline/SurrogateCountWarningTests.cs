@@ -83,6 +83,18 @@ public sealed class SurrogateCountWarningTests
     }
 
     [Fact]
+    public void The_plan_check_gives_the_contrast_warning_before_any_run()
+    {
+        // The same plan as above (M = 119): `check` says what the run would warn about the contrasts.
+        using var folder = new TempFolder();
+        var preview = PlanCheck.Preview(PlanReader.Read(ContrastPlan(folder, 119)));
+        Assert.Contains(preview.Warnings, w => w.StartsWith("Condition contrasts (go-vs-stay) are tested two-sided", StringComparison.Ordinal)
+            && w.Contains("at least 239 surrogates", StringComparison.Ordinal));
+        var enough = PlanCheck.Preview(PlanReader.Read(ContrastPlan(folder, 239)));
+        Assert.DoesNotContain(enough.Warnings, w => w.StartsWith("Condition contrasts", StringComparison.Ordinal));
+    }
+
+    [Fact]
     public void The_contrast_floor_is_met_at_twice_the_one_sided_count_and_absent_without_contrasts()
     {
         // 2/(M+1) ≤ 0.05/6 from M = 239 on (Benjamini & Hochberg 1995 with the two-sided floor, as above).
