@@ -146,7 +146,10 @@ public static class PairwiseKernels
 
     /// <summary>The output slots of the envelope measures, in slot order.</summary>
     private static int[] EnvelopeSlots(PairwiseWorkspace w) =>
-        Enumerable.Range(0, w.Measures.Count).Where(k => w.Measures[k] is Measure.Aec or Measure.AecOrth).ToArray();
+        Enumerable.Range(0, w.Measures.Count).Where(k => IsEnvelope(w.Measures[k])).ToArray();
+
+    /// <summary>Whether <paramref name="measure"/> reads the envelopes (AEC, AEC-orth: summed per trial, not per time point).</summary>
+    internal static bool IsEnvelope(Measure measure) => MeasureCatalog.InputOf(measure).HasFlag(MeasureInput.Envelope);
 
     /// <summary>Copies the pairs a &lt; b of a dense sum array into the table, in <see cref="PairIndex"/> order.</summary>
     private static void CopyPairs(PairwiseWorkspace w, AlignedArray dense, Span<double> target)
@@ -171,13 +174,10 @@ public static class PairwiseKernels
         int e = 0;
         for (int k = 0; k < w.Measures.Count; k++)
         {
-            if (w.Measures[k] is not (Measure.Aec or Measure.AecOrth)) continue;
+            if (!IsEnvelope(w.Measures[k])) continue;
             var sums = values.Slice(k * pairs, pairs);
             sums.Clear();
-            for (int n = 0; n < trials; n++)
-            {
-                AddInPlace(sums, table.Row(n, permutation[n], e));
-            }
+            for (int n = 0; n < trials; n++) AddInPlace(sums, table.Row(n, permutation[n], e));
             for (int p = 0; p < pairs; p++) sums[p] = Math.Tanh(sums[p] * scale);
             e++;
         }
@@ -201,7 +201,6 @@ public static class PairwiseKernels
             throw new ArgumentException("Expected one permutation and one output per workspace.", nameof(permutations));
         if (workspaces.Length == 0) return;
         var first = workspaces[0];
-        ArgumentNullException.ThrowIfNull(first);
         for (int i = 0; i < workspaces.Length; i++)
         {
             var w = workspaces[i];
@@ -277,7 +276,7 @@ public static class PairwiseKernels
         double signCounts = (double)w.Set.TrialCount * w.Set.TimeCount;
         for (int k = 0; k < w.Measures.Count; k++)
         {
-            bool isEnvelope = w.Measures[k] is Measure.Aec or Measure.AecOrth;
+            bool isEnvelope = IsEnvelope(w.Measures[k]);
             if (isEnvelope != envelope) continue;
             bool counts = w.Measures[k] == Measure.Pli;
             var dense = w.Dense[k]!;

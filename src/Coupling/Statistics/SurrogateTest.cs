@@ -75,7 +75,7 @@ public static class SurrogateTest
         try
         {
             // With more draws than trials, the envelope correlations of all N² trial pairs cost less than N per draw.
-            if (TrialPairTable.Pays(trials, measures.Count(m => m is Measure.Aec or Measure.AecOrth), pairs, draws))
+            if (TrialPairTable.Pays(trials, measures.Count(PairwiseKernels.IsEnvelope), pairs, draws))
                 PairwiseKernels.BuildTrialPairs(prototype, maxThreads, cancellationToken);
             // The draws of a chunk are computed together, time point by time point, so that the rows of one time
             // point are read from memory once for all of them (PairwiseKernels.ComputeTogether); each draw's values
