@@ -135,6 +135,7 @@ public static class PairwiseKernels
     }
 
     /// <summary>sums[p] += row[p] for every p (elementwise, so the same bits as one addition at a time).</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private static void AddInPlace(Span<double> sums, ReadOnlySpan<double> row)
     {
         int p = 0;
@@ -167,6 +168,7 @@ public static class PairwiseKernels
     /// The envelope measures of one draw from the trial-pair table: per measure and pair, Σ_n atanh r(n, π(n)) in trial
     /// order, then tanh of the mean, as <see cref="Extract"/> does with sums computed on the spot.
     /// </summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private static void AddEnvelopeFromTable(PairwiseWorkspace w, TrialPairTable table, ReadOnlySpan<int> permutation, Span<double> values)
     {
         int pairs = w.PairCount, trials = table.Trials;
@@ -194,6 +196,7 @@ public static class PairwiseKernels
     /// <param name="values">One output per draw, as for <see cref="Compute"/>.</param>
     /// <exception cref="ArgumentException">The spans differ in length, the workspaces are not of one set and measure
     /// list, or a permutation or output has the wrong length.</exception>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public static void ComputeTogether(ReadOnlySpan<PairwiseWorkspace> workspaces, ReadOnlySpan<int[]> permutations,
         ReadOnlySpan<double[]> values)
     {
@@ -292,6 +295,7 @@ public static class PairwiseKernels
     }
 
     /// <summary>Adds the per-time-point values of time point <paramref name="t"/> to the dense sums.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private static void AddTimePoint(PairwiseWorkspace w, int t, ReadOnlySpan<int> permutation)
     {
         var tables = w.Tables;
@@ -426,6 +430,7 @@ public static class PairwiseKernels
     }
 
     /// <summary>The lag measures of one time point, with the tile forming only the sums they need.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private static void AddLag<TSums>(PairwiseWorkspace w, ref double re, ref double im, long timeBase, ReadOnlySpan<int> permutation, nint ahead)
         where TSums : struct, ILagSums
     {
@@ -488,6 +493,7 @@ public static class PairwiseKernels
     }
 
     /// <summary>Adds the Fisher-transformed per-trial correlations of trial <paramref name="trial"/> (channel a) with trial <paramref name="partner"/> (channel b).</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private static void AddTrial(PairwiseWorkspace w, int trial, int partner)
     {
         var tables = w.Tables;
