@@ -1,5 +1,7 @@
 using System.Numerics;
 using System.Runtime.CompilerServices;
+using System.Runtime.InteropServices;
+using System.Runtime.Intrinsics;
 using Coupling.Results;
 using Coupling.Spectral;
 
@@ -43,17 +45,21 @@ public static class SignalSummaries
             for (int c = 0; c < channels; c++)
             {
                 var row = set.Row(t, c);
-                double p = 0;
-                Complex unit = Complex.Zero;
+                double p = 0, unitRe = 0, unitIm = 0;
                 for (int n = 0; n < trials; n++)
                 {
-                    double m = row[n].Magnitude;
-                    p += row[n].Real * row[n].Real + row[n].Imaginary * row[n].Imaginary;
-                    if (m > 0) unit += row[n] / m;
+                    double re = row[n].Real, im = row[n].Imaginary, squared = re * re + im * im;
+                    p += squared;
+                    if (squared > 0)
+                    {
+                        double inverse = 1 / Math.Sqrt(squared);
+                        unitRe += re * inverse;
+                        unitIm += im * inverse;
+                    }
                 }
                 rowPower[(long)t * channels + c] = p;
                 power[c] += p;
-                locking[c] += trials > 0 ? unit.Magnitude / trials : 0;
+                locking[c] += trials > 0 ? Math.Sqrt(unitRe * unitRe + unitIm * unitIm) / trials : 0;
             }
         }
         // Coherency sums: one channel a (its pairs with every b > a) per work item.
@@ -89,16 +95,45 @@ public static class SignalSummaries
             {
                 double denominator = Math.Sqrt(powerA * rowPower[(long)t * channels + b]);
                 if (!(denominator > 0)) continue;
-                var rb = set.Row(t, b);
-                double re = 0, im = 0;
-                for (int n = 0; n < trials; n++)
-                {
-                    re += ra[n].Real * rb[n].Real + ra[n].Imaginary * rb[n].Imaginary;
-                    im += ra[n].Imaginary * rb[n].Real - ra[n].Real * rb[n].Imaginary;
-                }
+                var (re, im) = CrossSum(ra, set.Row(t, b));
                 sumRe[k] += re / denominator;
                 sumIm[k] += im / denominator;
             }
         }
+    }
+
+    /// <summary>
+    /// Σ_n x_n·conj(y_n) as (real, imaginary). The complex numbers are read as interleaved (re, im) doubles: the real
+    /// part is their dot product, the imaginary part the alternating sum of x times y with each pair's halves swapped.
+    /// </summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
+    internal static (double Re, double Im) CrossSum(ReadOnlySpan<Complex> x, ReadOnlySpan<Complex> y)
+    {
+        var xs = MemoryMarshal.Cast<Complex, double>(x);
+        var ys = MemoryMarshal.Cast<Complex, double>(y[..x.Length]);
+        const int width = 4;
+        Vector256<double> re0 = default, re1 = default, swapped0 = default, swapped1 = default;
+        int i = 0;
+        for (; i <= xs.Length - 2 * width; i += 2 * width)
+        {
+            var x0 = Vector256.Create(xs.Slice(i, width));
+            var x1 = Vector256.Create(xs.Slice(i + width, width));
+            var y0 = Vector256.Create(ys.Slice(i, width));
+            var y1 = Vector256.Create(ys.Slice(i + width, width));
+            re0 = Vector256.FusedMultiplyAdd(x0, y0, re0);
+            re1 = Vector256.FusedMultiplyAdd(x1, y1, re1);
+            swapped0 = Vector256.FusedMultiplyAdd(x0, Vector256.Shuffle(y0, Vector256.Create(1L, 0, 3, 2)), swapped0);
+            swapped1 = Vector256.FusedMultiplyAdd(x1, Vector256.Shuffle(y1, Vector256.Create(1L, 0, 3, 2)), swapped1);
+        }
+        var reSum = re0 + re1;
+        // Lanes of the swapped product: x_re·y_im, x_im·y_re, ...: the imaginary part is odd lanes minus even lanes.
+        var imSum = (swapped0 + swapped1) * Vector256.Create(-1.0, 1.0, -1.0, 1.0);
+        double re = Vector256.Sum(reSum), im = Vector256.Sum(imSum);
+        for (; i < xs.Length; i += 2)
+        {
+            re += xs[i] * ys[i] + xs[i + 1] * ys[i + 1];
+            im += xs[i + 1] * ys[i] - xs[i] * ys[i + 1];
+        }
+        return (re, im);
     }
 }

@@ -98,4 +98,23 @@ public class SignalSummariesTests
         Assert.Equal(0, s.StimulusLocking[1]);
         Assert.Equal(0, s.Power[1]);
     }
+    [Fact]
+    public void The_vector_cross_sum_equals_the_sum_of_complex_products_at_every_length()
+    {
+        // Σ_n x_n·conj(y_n) through System.Numerics.Complex (the runtime's own complex arithmetic) as the reference, for
+        // lengths that leave every possible remainder after the four-complex steps. 1e-12 relative: a few dozen roundings.
+        var random = new Random(11);
+        for (int length = 0; length <= 13; length++)
+        {
+            var x = new Complex[length];
+            var y = new Complex[length + 2];
+            for (int n = 0; n < length; n++) x[n] = TestSignals.Gaussian(random);
+            for (int n = 0; n < y.Length; n++) y[n] = TestSignals.Gaussian(random);
+            var expected = Complex.Zero;
+            for (int n = 0; n < length; n++) expected += x[n] * Complex.Conjugate(y[n]);
+            var (re, im) = SignalSummaries.CrossSum(x, y);
+            Assert.Equal(expected.Real, re, 1e-12 * (1 + Math.Abs(expected.Real)));
+            Assert.Equal(expected.Imaginary, im, 1e-12 * (1 + Math.Abs(expected.Imaginary)));
+        }
+    }
 }
