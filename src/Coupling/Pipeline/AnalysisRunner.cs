@@ -93,8 +93,8 @@ public static class AnalysisRunner
             if (floorWarning is not null) warnings.Add(floorWarning);
         foreach (var w in warnings) onWarning?.Invoke(w);
 
-        // Corrections that need the draws themselves (maxima, tails) are computed whole, not kept as resumable units;
-        // without surrogates (values only) there is nothing to correct.
+        // Corrections that need the draws themselves (maxima, tails) are decided within the unit, so a unit keeps its
+        // corrected outcomes with its tests; without surrogates (values only) there is nothing to correct.
         bool draws = FamilyCorrection.NeedsDraws(plan.Correction) && plan.Surrogates > 0;
         var pValueCorrection = FamilyCorrection.NeedsDraws(plan.Correction) ? new CorrectionSpec(CorrectionMethod.None) : plan.Correction;
         var results = new List<PairResult>();
@@ -161,10 +161,13 @@ public static class AnalysisRunner
                 IReadOnlyList<SurrogateResult> Compute() => plan.Surrogates == 0 ? ValuesOnly.Compute(Narrowband(), plan.Measures)
                     : SurrogateTest.Run(Narrowband(), plan.Measures, plan.Surrogates, Seeds.For(plan.Seed, ci, bi), conditionName,
                         workers > 0 ? workers : null, stageProgress, cancellationToken);
+                IReadOnlyList<(SurrogateResult Test, FamilyOutcome Outcome)> Corrected() =>
+                    FamilyCorrection.TestCondition(Narrowband(), plan.Measures, plan.Surrogates, Seeds.For(plan.Seed, ci, bi),
+                        conditionName, plan.Correction, plan.Q, workers > 0 ? workers : null, stageProgress, cancellationToken);
+                string unit = UnfinishedRun.ConditionUnit(conditionName, plan.Bands[bi].Name);
                 var tested = draws
-                    ? FamilyCorrection.TestCondition(Narrowband(), plan.Measures, plan.Surrogates, Seeds.For(plan.Seed, ci, bi),
-                        conditionName, plan.Correction, plan.Q, workers > 0 ? workers : null, stageProgress, cancellationToken)
-                    : (units?.Condition(ci, bi, UnfinishedRun.ConditionUnit(conditionName, plan.Bands[bi].Name), Compute) ?? Compute())
+                    ? units?.CorrectedCondition(ci, bi, unit, Corrected) ?? Corrected()
+                    : (units?.Condition(ci, bi, unit, Compute) ?? Compute())
                         .Select(t => (t, FamilyCorrection.FromPValues(pValueCorrection, plan.Q, t.P))).ToArray();
                 var (low, high) = plan.JackknifeIntervals ? TrialResampling.Jackknife(Narrowband(), plan.Measures) : (null, null);
                 var matched = plan.MatchTrials > 0
@@ -240,15 +243,16 @@ public static class AnalysisRunner
                         : ConditionContrast.Run(a, b, plan.Measures, plan.Surrogates, Seeds.ForContrast(plan.Seed, ki, bi), contrast.Name,
                             plan.SubtractEvoked, workers > 0 ? workers : null, stageProgress, cancellationToken);
                 }
-                IReadOnlyList<(ContrastResult, FamilyOutcome)> tested;
-                if (draws)
+                IReadOnlyList<(ContrastResult Test, FamilyOutcome Outcome)> Corrected()
                 {
                     var (a, b) = Narrowband();
-                    tested = FamilyCorrection.TestContrast(a, b, plan.Measures, plan.Surrogates, Seeds.ForContrast(plan.Seed, ki, bi),
+                    return FamilyCorrection.TestContrast(a, b, plan.Measures, plan.Surrogates, Seeds.ForContrast(plan.Seed, ki, bi),
                         contrast.Name, plan.Correction, plan.Q, workers > 0 ? workers : null, stageProgress, cancellationToken, plan.SubtractEvoked);
                 }
-                else
-                    tested = (units?.Contrast(ki, bi, UnfinishedRun.ContrastUnit(contrast.Name, plan.Bands[bi].Name), Compute) ?? Compute())
+                string unit = UnfinishedRun.ContrastUnit(contrast.Name, plan.Bands[bi].Name);
+                var tested = draws
+                    ? units?.CorrectedContrast(ki, bi, unit, Corrected) ?? Corrected()
+                    : (units?.Contrast(ki, bi, unit, Compute) ?? Compute())
                         .Select(t => (t, FamilyCorrection.FromPValues(pValueCorrection, plan.Q, t.P))).ToArray();
                 foreach (var (m, o) in tested)
                     results.Add(new ContrastPairResult(contrast.Name, contrast.ConditionA, contrast.ConditionB, plan.Bands[bi].Name,

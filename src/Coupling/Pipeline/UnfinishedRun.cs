@@ -115,14 +115,22 @@ public sealed class UnfinishedRun
     public IReadOnlyList<string> KeptUnits(Plan plan)
     {
         ArgumentNullException.ThrowIfNull(plan);
+        // A unit of a correction that needs the draws holds each test's outcome after it (CorrectedCondition).
+        bool corrected = FamilyCorrection.NeedsDraws(plan.Correction) && plan.Surrogates > 0;
+        bool KeptCondition(string path) => corrected
+            ? Load(path, null, r => (ReadSurrogate(r), ReadOutcome(r))) is not null
+            : Load(path, null, ReadSurrogate) is not null;
+        bool KeptContrast(string path) => corrected
+            ? Load(path, null, r => (ReadContrast(r), ReadOutcome(r))) is not null
+            : Load(path, null, ReadContrast) is not null;
         var kept = new List<string>();
         for (int ci = 0; ci < plan.Conditions.Count; ci++)
             for (int bi = 0; bi < plan.Bands.Count; bi++)
-                if (Load(UnitPath($"condition-{ci}-band-{bi}"), null, ReadSurrogate) is not null)
+                if (KeptCondition(UnitPath($"condition-{ci}-band-{bi}")))
                     kept.Add(ConditionUnit(plan.Conditions[ci].Name, plan.Bands[bi].Name));
         for (int ki = 0; ki < plan.Contrasts.Count; ki++)
             for (int bi = 0; bi < plan.Bands.Count; bi++)
-                if (Load(UnitPath($"contrast-{ki}-band-{bi}"), null, ReadContrast) is not null)
+                if (KeptContrast(UnitPath($"contrast-{ki}-band-{bi}")))
                     kept.Add(ContrastUnit(plan.Contrasts[ki].Name, plan.Bands[bi].Name));
         return kept;
     }
@@ -135,29 +143,41 @@ public sealed class UnfinishedRun
     /// <param name="band">Index of the band in the plan.</param>
     /// <param name="label">How the unit is named in the manifest (<see cref="ConditionUnit"/>).</param>
     /// <param name="compute">Computes the unit.</param>
-    public IReadOnlyList<SurrogateResult> Condition(int condition, int band, string label, Func<IReadOnlyList<SurrogateResult>> compute)
-    {
-        ArgumentNullException.ThrowIfNull(compute);
-        string path = UnitPath($"condition-{condition}-band-{band}");
-        var loaded = Load(path, label, r => ReadSurrogate(r));
-        if (loaded is not null) return loaded;
-        var results = compute();
-        Save(path, w => { foreach (var r in results) WriteSurrogate(w, r); }, results.Count);
-        return results;
-    }
+    public IReadOnlyList<SurrogateResult> Condition(int condition, int band, string label, Func<IReadOnlyList<SurrogateResult>> compute) =>
+        Unit($"condition-{condition}-band-{band}", label, ReadSurrogate, WriteSurrogate, compute);
+
+    /// <summary>
+    /// As <see cref="Condition"/>, for a correction that needs the draws themselves (<see cref="FamilyCorrection.NeedsDraws"/>):
+    /// the unit keeps each measure's test together with its corrected outcome, which the draws decided.
+    /// </summary>
+    public IReadOnlyList<(SurrogateResult Test, FamilyOutcome Outcome)> CorrectedCondition(int condition, int band, string label,
+        Func<IReadOnlyList<(SurrogateResult Test, FamilyOutcome Outcome)>> compute) =>
+        Unit<(SurrogateResult Test, FamilyOutcome Outcome)>($"condition-{condition}-band-{band}", label, r => (ReadSurrogate(r), ReadOutcome(r)),
+            (w, t) => { WriteSurrogate(w, t.Test); WriteOutcome(w, t.Outcome); }, compute);
 
     /// <summary>
     /// The label-permutation test of contrast <paramref name="contrast"/> in band <paramref name="band"/>: loaded when an
     /// earlier run saved it, else computed by <paramref name="compute"/> and saved.
     /// </summary>
-    public IReadOnlyList<ContrastResult> Contrast(int contrast, int band, string label, Func<IReadOnlyList<ContrastResult>> compute)
+    public IReadOnlyList<ContrastResult> Contrast(int contrast, int band, string label, Func<IReadOnlyList<ContrastResult>> compute) =>
+        Unit($"contrast-{contrast}-band-{band}", label, ReadContrast, WriteContrast, compute);
+
+    /// <summary>As <see cref="Contrast"/>, with each measure's corrected outcome (see <see cref="CorrectedCondition"/>).</summary>
+    public IReadOnlyList<(ContrastResult Test, FamilyOutcome Outcome)> CorrectedContrast(int contrast, int band, string label,
+        Func<IReadOnlyList<(ContrastResult Test, FamilyOutcome Outcome)>> compute) =>
+        Unit<(ContrastResult Test, FamilyOutcome Outcome)>($"contrast-{contrast}-band-{band}", label, r => (ReadContrast(r), ReadOutcome(r)),
+            (w, t) => { WriteContrast(w, t.Test); WriteOutcome(w, t.Outcome); }, compute);
+
+    /// <summary>The unit <paramref name="name"/>: loaded when an earlier run saved it, else computed and saved.</summary>
+    private IReadOnlyList<T> Unit<T>(string name, string label, Func<BinaryReader, T> read, Action<BinaryWriter, T> write,
+        Func<IReadOnlyList<T>> compute)
     {
         ArgumentNullException.ThrowIfNull(compute);
-        string path = UnitPath($"contrast-{contrast}-band-{band}");
-        var loaded = Load(path, label, r => ReadContrast(r));
+        string path = UnitPath(name);
+        var loaded = Load(path, label, read);
         if (loaded is not null) return loaded;
         var results = compute();
-        Save(path, w => { foreach (var r in results) WriteContrast(w, r); }, results.Count);
+        Save(path, w => { foreach (var r in results) write(w, r); }, results.Count);
         return results;
     }
 
@@ -198,7 +218,7 @@ public sealed class UnfinishedRun
             if (label is not null) lock (_gate) _resumed.Add(label);
             return items;
         }
-        catch (Exception e) when (e is IOException or InvalidDataException or ArgumentException or InputException)
+        catch (Exception e) when (e is IOException or InvalidDataException or ArgumentException or FormatException or InputException)
         {
             return null;
         }
@@ -251,6 +271,33 @@ public sealed class UnfinishedRun
     private static ContrastResult ReadContrast(BinaryReader r) => new(
         Measures.MeasureCatalog.Parse(r.ReadString()), r.ReadInt32(), ReadDoubles(r), ReadDoubles(r), ReadDoubles(r), ReadDoubles(r), ReadDoubles(r),
         ReadInts(r), ReadDoubles(r), ReadDoubles(r));
+
+    private static void WriteOutcome(BinaryWriter w, FamilyOutcome o)
+    {
+        w.Write(o.Method.ToString());
+        w.Write(BitConverter.DoubleToInt64Bits(o.Level));
+        WriteDoubles(w, o.P);
+        w.Write(o.PSource.Length);
+        foreach (string source in o.PSource) w.Write(source);
+        WriteDoubles(w, o.PCorrected);
+        WriteInts(w, o.Significant.Select(b => b ? 1 : 0).ToArray());
+        WriteInts(w, o.Component);
+        WriteInts(w, o.ComponentExtent);
+        WriteDoubles(w, o.ComponentP);
+    }
+
+    private static FamilyOutcome ReadOutcome(BinaryReader r)
+    {
+        if (!Enum.TryParse<CorrectionMethod>(r.ReadString(), out var method)) throw new InvalidDataException("unknown correction method");
+        double level = BitConverter.Int64BitsToDouble(r.ReadInt64());
+        var p = ReadDoubles(r);
+        int sources = r.ReadInt32();
+        if (sources < 0 || sources > r.BaseStream.Length - r.BaseStream.Position) throw new InvalidDataException("unit array length out of range");
+        var pSource = new string[sources];
+        for (int i = 0; i < sources; i++) pSource[i] = r.ReadString();
+        return new FamilyOutcome(method, level, p, pSource, ReadDoubles(r), ReadInts(r).Select(v => v != 0).ToArray(),
+            ReadInts(r), ReadInts(r), ReadDoubles(r));
+    }
 
     /// <summary>Writes the length, then each double's IEEE 754 bits (exact, NaN payloads included).</summary>
     private static void WriteDoubles(BinaryWriter w, double[] values)

@@ -13,7 +13,8 @@ internal static class ResumeStudy
     public static readonly string[] RunFields = ["started", "finished", "run_seconds", "resumed_units"];
 
     /// <summary>Writes recording, events (go and stop alternating) and plan into <paramref name="folder"/>; returns the plan's path.</summary>
-    public static string Write(string folder, int surrogates)
+    /// <param name="correction">The plan's <c>correction</c> value, or null for the default.</param>
+    public static string Write(string folder, int surrogates, string? correction = null)
     {
         SmallStudy.WriteRecording(folder);
         string events = Path.Combine(folder, "rec_events.tsv");
@@ -22,7 +23,7 @@ internal static class ResumeStudy
         File.WriteAllText(events, string.Join("\n", rows) + "\n");
         string plan = Path.Combine(folder, "plan.yaml");
         File.WriteAllText(plan, SmallStudy.PlanText(surrogates, conditions: "{ go: [go], stop: [stop] }", bands: "{ alpha: [8, 12], beta: [15, 25] }")
-            + "\ncontrasts: [[go, stop]]\n");
+            + "\ncontrasts: [[go, stop]]\n" + (correction is null ? "" : $"correction: {correction}\n"));
         return plan;
     }
 

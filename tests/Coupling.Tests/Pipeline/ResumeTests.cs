@@ -47,6 +47,28 @@ public sealed class ResumeTests : IDisposable
         Assert.Equal(["plan.yaml", "rec.csv", "rec_events.tsv", "results", "whole"], _folder.Entries());
     }
 
+    [Theory]
+    [InlineData("{ method: max-statistic, alpha: 0.05 }")]
+    [InlineData("{ method: network-based, alpha: 0.05, threshold: 2 }")]
+    [InlineData("{ method: benjamini-hochberg, q: 0.05, tail: pareto }")]
+    public void Corrections_decided_by_the_draws_resume_from_their_units_and_give_the_same_bytes(string correction)
+    {
+        // These corrections need every draw of a table (its maxima, components or tails), so a unit keeps each measure's
+        // corrected outcome beside its test; a resumed run must still write exactly what a run never stopped writes.
+        string plan = ResumeStudy.Write(_folder.Path, surrogates: 40, correction);
+        var whole = AnalysisRunner.Run(PlanReader.Read(plan), threads: 1);
+        var expected = ResumeStudy.Contents(whole.OutputFolder);
+        Directory.Move(_folder["results"], _folder["whole"]);
+
+        RunAndStop(plan, stopAt: 5);
+        Assert.Equal(5, Directory.GetFiles(Path.Combine(_folder[".results.unfinished"], "units"), "*.unit").Length);
+
+        var resumed = AnalysisRunner.Run(PlanReader.Read(plan), threads: 1);
+        Assert.Equal(["condition go / band alpha", "condition go / band beta", "condition stop / band alpha",
+            "condition stop / band beta", "contrast go-vs-stop / band alpha"], resumed.ResumedUnits);
+        Assert.Equal(expected, ResumeStudy.Contents(_folder["results"]));
+    }
+
     [Fact]
     public void A_changed_plan_or_input_is_refused_unless_asked_to_start_over()
     {
