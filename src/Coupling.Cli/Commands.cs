@@ -154,6 +154,13 @@ internal static class Commands
             : p.Surrogates < p.SurrogatesForOneDiscovery ? " (too few for a lone coupled pair to pass the correction)." : ".";
         output.WriteLine(string.Create(inv,
             $"Surrogates needed for a single discovery among {p.Pairs} pairs at {(CorrectionSpec.ControlsFalseDiscoveries(plan.Correction.Method) ? "q" : "alpha")} = {plan.Q:G3} ({CorrectionSpec.Key(plan.Correction.Method)}): at least {p.SurrogatesForOneDiscovery}; the plan has {p.Surrogates}{verdict}"));
+        if (p.SurrogatesForOneDifference is { } forDifference)
+        {
+            string contrastVerdict = p.Surrogates == 0 ? " (values only, no test)."
+                : p.Surrogates < forDifference ? " (too few for a lone pair that differs to pass the correction)." : ".";
+            output.WriteLine(string.Create(inv,
+                $"Surrogates needed for a single difference between conditions (two-sided): at least {forDifference}; the plan has {p.Surrogates}{contrastVerdict}"));
+        }
         foreach (var w in p.Warnings) output.WriteLine($"warning: {w}");
         string state = !Directory.Exists(p.Output) ? " (new)"
             : Directory.EnumerateFileSystemEntries(p.Output).Any() ? " (earlier results, to be replaced)" : " (an empty folder, to be filled)";

@@ -56,7 +56,8 @@ public static class PlanCheck
         int pairs = PairIndex.Count(input.Channels.Count);
         return new PlanPreview(plan.Source, plan.Recording, input.SampleRate, input.Channels.Select(c => c.Label).ToArray(), conditions, bands,
             units, kept.KeptUnits(plan), plan.Surrogates, pairs, SurrogateFloor.Of(plan.Correction, plan.Q, pairs,
-                twoSidedOnly: plan.Measures.All(m => MeasureCatalog.TailOf(m) == TestTail.TwoSided)).Needed, plan.Output,
+                twoSidedOnly: plan.Measures.All(m => MeasureCatalog.TailOf(m) == TestTail.TwoSided)).Needed,
+            plan.Contrasts.Count > 0 ? SurrogateFloor.Of(plan.Correction, plan.Q, pairs, twoSidedOnly: true).Needed : null, plan.Output,
             BandWarnings.For(plan, decompositions, input.SampleRate, input.EpochSamples)
                 .Concat(SurrogateCountWarning.ForContrasts(plan, pairs) is { } contrastWarning ? [contrastWarning] : [])
                 .ToArray());

@@ -14,6 +14,8 @@ namespace Coupling.Pipeline;
 /// <param name="SurrogatesForOneDiscovery">Fewest surrogates with which a single coupled pair can pass the correction,
 /// ⌈pairs / q⌉ − 1 for Benjamini-Hochberg (its smallest p, 1/(M + 1), must reach q / pairs), ⌈c(m)·pairs / q⌉ − 1 for
 /// Benjamini-Yekutieli, ⌈1/alpha⌉ − 1 for the family-wise corrections and none, 1 with the Pareto tail.</param>
+/// <param name="SurrogatesForOneDifference">The same for the condition contrasts, which are tested two-sided (so their
+/// floor is 2/(M + 1) under the false discovery rate corrections and none); null when the plan has no contrasts.</param>
 /// <param name="Output">The results folder.</param>
 /// <param name="Warnings">Warnings the run would give too: about the bands (e.g. too few cycles in the window) and about too few surrogates for the condition contrasts.</param>
 public sealed record PlanPreview(
@@ -28,5 +30,6 @@ public sealed record PlanPreview(
     int Surrogates,
     int Pairs,
     int SurrogatesForOneDiscovery,
+    int? SurrogatesForOneDifference,
     string Output,
     IReadOnlyList<string> Warnings);

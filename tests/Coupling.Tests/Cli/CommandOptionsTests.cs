@@ -41,6 +41,10 @@ public sealed class CommandOptionsTests : IDisposable
         Assert.Contains("  contrast go-vs-stop / band beta", lines);
         // 4 channels give 6 pairs; a lone pair passes Benjamini-Hochberg at q = 0.05 only if 1/(M+1) <= 0.05/6, so M >= 119.
         Assert.Contains(lines, l => l.StartsWith("Surrogates needed for a single discovery among 6 pairs at q = 0.05 (benjamini-hochberg): at least 119; the plan has 40", StringComparison.Ordinal));
+        // The contrast is two-sided, so its smallest counted p is 2/(M+1) and the Benjamini-Hochberg step for a lone pair,
+        // q/6 (Benjamini & Hochberg 1995), needs M >= 2·6/0.05 − 1 = 239.
+        Assert.Contains("Surrogates needed for a single difference between conditions (two-sided): at least 239; the plan has 40 " +
+            "(too few for a lone pair that differs to pass the correction).", lines);
 
         // Values without a test: no surrogate count to check, and check says so.
         (code, output, err) = Cli("check", plan, "--surrogates", "0");
