@@ -85,11 +85,19 @@ public static class EdfReader
     /// Checks that <paramref name="header"/> describes a continuous file with data signals and chooses the signals to read
     /// (see <see cref="Read"/>); signals left out for another sampling rate are noted in <paramref name="notes"/>.
     /// </summary>
-    internal static int[] SelectReadable(EdfHeader header, IReadOnlyCollection<string>? selectedChannels, List<string> notes)
+    /// <param name="header">The file's header.</param>
+    /// <param name="selectedChannels">Labels to read, or null (see <see cref="Read"/>).</param>
+    /// <param name="notes">Receives the signals left out.</param>
+    /// <param name="allowDiscontinuous">Accept an EDF+D file (<see cref="EdfSegmentReader"/> places its records by their
+    /// time stamps); the whole-file read refuses one.</param>
+    internal static int[] SelectReadable(EdfHeader header, IReadOnlyCollection<string>? selectedChannels, List<string> notes,
+        bool allowDiscontinuous = false)
     {
         string path = header.Source;
-        if (header.IsDiscontinuous)
-            throw new InputException($"{path}: EDF+D (discontinuous) files are not supported; only EDF and EDF+C can be read.");
+        if (header.IsDiscontinuous && !allowDiscontinuous)
+            throw new InputException($"{path}: EDF+D (discontinuous) files are read only through a plan (a run or check), which places each data record at its time stamp; this reader takes EDF and EDF+C.");
+        if (header.IsDiscontinuous && !header.Signals.Any(s => s.IsAnnotation))
+            throw new InputException($"{path}: an EDF+D file needs an annotation signal ('EDF Annotations') whose time stamps place its data records; this one has none.");
         var selected = SelectSignals(header, selectedChannels, notes);
         if (header.RecordDuration <= 0)
             throw new InputException($"{path}: header field 'duration of a data record' at byte 244 is {Text(header.RecordDuration)}; a file with data signals needs a positive record duration.");
@@ -170,11 +178,18 @@ public static class EdfReader
     }
 
     /// <summary>
-    /// Streams every data record in blocks of about 4 MiB, handing each to <paramref name="onRecord"/>, and parses the
-    /// annotation signals. Returns the events (onsets from the first record's time-keeping stamp, sorted); notes on
+    /// Streams every data record in blocks of about 4 MiB, parses the annotation signals and then hands each record to
+    /// <paramref name="onRecord"/>. Returns the events (onsets from the first record's time-keeping stamp, sorted); notes on
     /// the records' timing go to <paramref name="notes"/>.
     /// </summary>
-    internal static IReadOnlyList<RecordingEvent> ScanRecords(EdfHeader header, Stream stream, List<string> notes, RecordHandler? onRecord)
+    /// <param name="header">The file's header.</param>
+    /// <param name="stream">The file, open for reading.</param>
+    /// <param name="notes">Receives notes on the records' timing.</param>
+    /// <param name="onRecord">Called with each record after its time-keeping stamp is parsed; may be null.</param>
+    /// <param name="recordStamps">When given (length: the record count), receives each record's time-keeping stamp in
+    /// seconds from the first record's, filled for record r before <paramref name="onRecord"/> sees it (EDF+ only).</param>
+    internal static IReadOnlyList<RecordingEvent> ScanRecords(EdfHeader header, Stream stream, List<string> notes, RecordHandler? onRecord,
+        double[]? recordStamps = null)
     {
         var signals = header.Signals;
         int signalCount = signals.Count;
@@ -196,7 +211,6 @@ public static class EdfReader
             {
                 int r = r0 + k;
                 var record = new ReadOnlySpan<byte>(buffer, k * recordBytes, recordBytes);
-                onRecord?.Invoke(r, record);
                 for (int a = 0; a < annotationSignals.Length; a++)
                 {
                     var s = signals[annotationSignals[a]];
@@ -206,13 +220,16 @@ public static class EdfReader
                     if (a == 0)
                         stamps[r] = stamp ?? throw new InputException($"{header.Source}: data record {r + 1} has no time-keeping annotation; EDF+ requires one as the first TAL of every record.");
                 }
+                if (recordStamps is not null && stamps.Length > 0) recordStamps[r] = stamps[r] - stamps[0];
+                onRecord?.Invoke(r, record);
             }
         }
 
         double start = stamps.Length > 0 ? stamps[0] : 0.0;
         if (start != 0)
             notes.Add($"The first data record starts {Text(start)} s after the header's start time; event onsets are measured from the first sample.");
-        CheckContinuity(header, stamps, notes);
+        // In an EDF+D file the stamps place the records (with gaps between them): they are not expected to follow on.
+        if (!header.IsDiscontinuous) CheckContinuity(header, stamps, notes);
         return found.Select(e => e with { Onset = e.Onset - start }).OrderBy(e => e.Onset).ToArray();
     }
 

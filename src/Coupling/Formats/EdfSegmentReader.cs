@@ -1,5 +1,6 @@
 using System.Buffers;
 using System.Buffers.Binary;
+using System.Globalization;
 
 namespace Coupling.Formats;
 
@@ -25,12 +26,16 @@ public sealed class EdfSegmentReader : ISampleSource
     private readonly List<(int Start, int Length)>[] _clipped;
     private readonly int[] _offsets;
     private readonly int _perRecord;
+    private readonly int[]? _recordStarts;
 
     private EdfSegmentReader(EdfHeader header, int perRecord, double sampleRate, int[] signals, IReadOnlyList<ChannelInfo> channels,
-        bool[] flat, List<(int Start, int Length)>[] clipped, IReadOnlyList<RecordingEvent> events, IReadOnlyList<string> notes, int sampleCount)
+        bool[] flat, List<(int Start, int Length)>[] clipped, IReadOnlyList<RecordingEvent> events, IReadOnlyList<string> notes, int sampleCount,
+        int[]? recordStarts, IReadOnlyList<(int Start, int Length)> gaps)
     {
         _clipped = clipped;
         _perRecord = perRecord;
+        _recordStarts = recordStarts;
+        Gaps = gaps;
         Header = header;
         _signals = signals;
         _flat = flat;
@@ -43,8 +48,10 @@ public sealed class EdfSegmentReader : ISampleSource
     }
 
     /// <summary>
-    /// Opens an EDF or EDF+C file: parses the header, selects the signals, and streams through the records once to
-    /// read the events and find flat channels.
+    /// Opens an EDF, EDF+C or EDF+D file: parses the header, selects the signals, and streams through the records once to
+    /// read the events and find flat channels. The data records of an EDF+D file are placed at their time-keeping
+    /// stamps (each record's start rounded to the nearest sample from the first record's); the samples between records
+    /// that do not follow on are <see cref="Gaps"/> and read as NaN.
     /// </summary>
     /// <param name="path">The file to read.</param>
     /// <param name="selectedChannels">Labels of the signals to read (trimmed labels, ordinal match), or null for all
@@ -52,19 +59,26 @@ public sealed class EdfSegmentReader : ISampleSource
     /// <param name="keepCompleteRecords">For a file shorter than its header promises: read the complete data records
     /// it holds (saying how many in <see cref="Notes"/>) instead of refusing it.</param>
     /// <returns>The reader, with the events and notes <see cref="EdfReader.Read"/> would give.</returns>
-    /// <exception cref="InputException">The file is missing, EDF+D, malformed or truncated; a selected label is unknown;
-    /// or selected signals differ in sampling rate.</exception>
+    /// <exception cref="InputException">The file is missing, malformed or truncated; an EDF+D file's records overlap or
+    /// go back in time; a selected label is unknown; or selected signals differ in sampling rate.</exception>
     public static EdfSegmentReader Open(string path, IReadOnlyCollection<string>? selectedChannels = null, bool keepCompleteRecords = false)
     {
         using var stream = EdfReader.Open(path);
         var notes = new List<string>();
         var header = EdfReader.ParseHeader(path, stream, keepCompleteRecords, notes);
-        var selected = EdfReader.SelectReadable(header, selectedChannels, notes);
+        var selected = EdfReader.SelectReadable(header, selectedChannels, notes, allowDiscontinuous: true);
         var signals = header.Signals;
         int perRecord = signals[selected[0]].SamplesPerRecord;
+        double sampleRate = signals[selected[0]].SampleRate;
         long perChannel = (long)header.RecordCount * perRecord;
         if (perChannel > int.MaxValue)
             throw new InputException($"{path}: {perChannel} samples per signal is more than a sample index can count; select a shorter file.");
+        bool discontinuous = header.IsDiscontinuous;
+        var stamps = discontinuous ? new double[header.RecordCount] : null;
+        var recordStarts = discontinuous ? new int[header.RecordCount] : null;
+        var gaps = new List<(int Start, int Length)>();
+        int offGrid = 0;
+        long end = 0; // the sample after the last record placed
 
         // A channel is flat when every physical sample equals its first (exact comparison, as RecordingChecks does).
         var flat = Enumerable.Repeat(true, selected.Length).ToArray();
@@ -81,6 +95,19 @@ public sealed class EdfSegmentReader : ISampleSource
         }
         var events = EdfReader.ScanRecords(header, stream, notes, (r, record) =>
         {
+            long start = (long)r * perRecord;
+            if (recordStarts is not null)
+            {
+                start = PlaceRecord(path, r, stamps![r], sampleRate, end, perRecord, ref offGrid);
+                if (start > end)
+                {
+                    // A gap: clipping runs do not continue across it.
+                    for (int c = 0; c < selected.Length; c++) Close(c, (int)end);
+                    gaps.Add(((int)end, (int)(start - end)));
+                }
+                recordStarts[r] = (int)start;
+            }
+            end = start + perRecord;
             // Clipping: runs of two or more consecutive samples at the signal's digital minimum or maximum.
             for (int c = 0; c < selected.Length; c++)
             {
@@ -89,7 +116,7 @@ public sealed class EdfSegmentReader : ISampleSource
                 for (int i = 0; i < perRecord; i++)
                 {
                     int d = BinaryPrimitives.ReadInt16LittleEndian(bytes.Slice(2 * i, 2));
-                    int at = r * perRecord + i;
+                    int at = (int)start + i;
                     bool limit = d == s.DigitalMinimum || d == s.DigitalMaximum;
                     if (runStart[c] >= 0 && (!limit || d != runValue[c])) Close(c, at);
                     if (limit && runStart[c] < 0) { runStart[c] = at; runValue[c] = d; }
@@ -103,11 +130,42 @@ public sealed class EdfSegmentReader : ISampleSource
                 if (r == 0) first[c] = scratch[0];
                 if (scratch.AsSpan().IndexOfAnyExcept(first[c]) >= 0) flat[c] = false;
             }
-        });
-        for (int c = 0; c < selected.Length; c++) Close(c, (int)perChannel);
+        }, stamps);
+        for (int c = 0; c < selected.Length; c++) Close(c, (int)end);
+        if (gaps.Count > 0)
+        {
+            long missing = gaps.Sum(g => (long)g.Length);
+            notes.Add(string.Create(CultureInfo.InvariantCulture,
+                $"EDF+D: {gaps.Count} gap(s) between data records, {missing / sampleRate:0.###} s in all (first from {gaps[0].Start / sampleRate:0.###} s, {gaps[0].Length / sampleRate:0.###} s long); trials that reach into a gap cannot be analysed."));
+        }
+        if (offGrid > 0)
+            notes.Add($"EDF+D: {offGrid} data record(s) start off the sampling grid by more than a hundredth of a sample; each was placed at the nearest sample.");
         var channels = selected.Select(i => EdfReader.ToChannel(signals[i])).ToArray();
-        return new EdfSegmentReader(header, perRecord, signals[selected[0]].SampleRate, selected, channels, flat, clipped, events, notes, (int)perChannel);
+        return new EdfSegmentReader(header, perRecord, sampleRate, selected, channels, flat, clipped, events, notes, (int)end, recordStarts, gaps);
     }
+
+    /// <summary>
+    /// The first sample of EDF+D data record <paramref name="r"/>: its stamp (seconds from the first record's) times the
+    /// rate, rounded; refused when it would overlap the record before (which ends at <paramref name="end"/>).
+    /// </summary>
+    private static long PlaceRecord(string path, int r, double stamp, double rate, long end, int perRecord, ref int offGrid)
+    {
+        double exact = stamp * rate;
+        long start = (long)Math.Round(exact);
+        if (Math.Abs(exact - start) > 0.01) offGrid++;
+        if (start < end)
+            throw new InputException(string.Create(CultureInfo.InvariantCulture,
+                $"{path}: EDF+D data record {r + 1} starts at {stamp:0.######} s after the first, before the record ahead of it ends ({end / rate:0.######} s); records must follow each other in time without overlapping."));
+        if (start + perRecord > int.MaxValue)
+            throw new InputException($"{path}: EDF+D data record {r + 1} lies more than a sample index can count from the first; select a shorter file.");
+        return start;
+    }
+
+    /// <summary>
+    /// Stretches between EDF+D data records that hold no samples, as (first sample, length) on the recording's sample
+    /// axis; <see cref="Read"/> gives NaN there. Empty for EDF and EDF+C files and for EDF+D files whose records follow on.
+    /// </summary>
+    public IReadOnlyList<(int Start, int Length)> Gaps { get; }
 
     /// <summary>The file's header (every signal, including annotation signals).</summary>
     public EdfHeader Header { get; }
@@ -152,7 +210,7 @@ public sealed class EdfSegmentReader : ISampleSource
             throw new ArgumentException($"{indices.Count} indices but {channels.Count} channel descriptions.", nameof(channels));
         foreach (int i in indices) ArgumentOutOfRangeException.ThrowIfGreaterThanOrEqual((uint)i, (uint)Channels.Count, nameof(indices));
         return new EdfSegmentReader(Header, _perRecord, SampleRate, indices.Select(i => _signals[i]).ToArray(), channels.ToArray(),
-            indices.Select(i => _flat[i]).ToArray(), indices.Select(i => _clipped[i]).ToArray(), Events, Notes, SampleCount);
+            indices.Select(i => _flat[i]).ToArray(), indices.Select(i => _clipped[i]).ToArray(), Events, Notes, SampleCount, _recordStarts, Gaps);
     }
 
     /// <inheritdoc/>
@@ -166,6 +224,15 @@ public sealed class EdfSegmentReader : ISampleSource
         int recordBytes = checked((int)Header.RecordBytes);
         int firstRecord = firstSample / perRecord;
         int lastRecord = (int)(((long)firstSample + length - 1) / perRecord);
+        if (_recordStarts is { } starts)
+        {
+            // Records placed at their stamps: those overlapping the segment, and NaN wherever none does.
+            target.Fill(double.NaN);
+            firstRecord = RecordAtOrBefore(starts, firstSample);
+            if (firstRecord < 0 || starts[firstRecord] + perRecord <= firstSample) firstRecord++;
+            lastRecord = RecordAtOrBefore(starts, firstSample + length - 1);
+            if (firstRecord > lastRecord) return;
+        }
         int recordsPerBlock = Math.Max(1, BlockBytes / recordBytes);
         int blockRecords = Math.Min(recordsPerBlock, lastRecord - firstRecord + 1);
         var buffer = ArrayPool<byte>.Shared.Rent(blockRecords * recordBytes);
@@ -187,7 +254,7 @@ public sealed class EdfSegmentReader : ISampleSource
                 for (int k = 0; k < count; k++)
                 {
                     var record = new ReadOnlySpan<byte>(buffer, k * recordBytes, recordBytes);
-                    long recordStart = (long)(b0 + k) * perRecord;
+                    long recordStart = _recordStarts is null ? (long)(b0 + k) * perRecord : _recordStarts[b0 + k];
                     int lo = (int)Math.Max(firstSample, recordStart);
                     int hi = (int)Math.Min((long)firstSample + length, recordStart + perRecord);
                     for (int c = 0; c < _signals.Length; c++)
@@ -203,5 +270,12 @@ public sealed class EdfSegmentReader : ISampleSource
         {
             ArrayPool<byte>.Shared.Return(buffer);
         }
+    }
+
+    /// <summary>The last record whose first sample is at or before <paramref name="sample"/>; −1 when there is none.</summary>
+    private static int RecordAtOrBefore(int[] starts, int sample)
+    {
+        int i = Array.BinarySearch(starts, sample);
+        return i >= 0 ? i : ~i - 1;
     }
 }

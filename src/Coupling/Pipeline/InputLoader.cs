@@ -1,3 +1,4 @@
+using System.Globalization;
 using Coupling.Formats;
 using Coupling.Plans;
 
@@ -99,6 +100,12 @@ public static class InputLoader
             channels = sorted.Select(k => channels[k]).ToArray();
         }
         var samples = reader.WithChannels(indices, channels);
+        if (reader.Gaps.Count > 0 && plan.UnusableData != UnusableData.DropTrials)
+        {
+            var gap = reader.Gaps[0];
+            throw new InputException(string.Create(CultureInfo.InvariantCulture,
+                $"{plan.Where("unusable_data")}: '{path}' is EDF+D with {reader.Gaps.Count} gap(s) between its data records (the first from {gap.Start / reader.SampleRate:0.###} s, {gap.Length / reader.SampleRate:0.###} s long), where nothing was recorded; give 'unusable_data: drop-trials' to leave out the trials (with their padding) that reach into a gap."));
+        }
         if (plan.UnusableData == UnusableData.Refuse)
         {
             CheckChannels(path, samples.FindFlatChannels(), samples.Channels.Count);
@@ -109,8 +116,14 @@ public static class InputLoader
         var notes = new List<string>(kept.Notes);
         var keep = Screen(plan, channels, c => flat.Contains(channels[c].Label), runs, "clipped", samples.SampleRate, notes);
         var screened = reader.WithChannels(keep.Select(k => indices[k]).ToArray(), keep.Select(k => channels[k]).ToArray());
-        return WithRuns(plan, LoadedInput.FromSource(screened, events, notes), keep, runs, "clipped");
+        var input = WithRuns(plan, LoadedInput.FromSource(screened, events, notes), keep, runs, "clipped");
+        // Gaps are missing in every channel alike: one run each, named after the first channel kept.
+        return reader.Gaps.Count == 0 ? input
+            : input.WithUnusableRuns(input.UnusableRuns.Concat(reader.Gaps.Select(g => (0, g.Start, g.Length, UnrecordedKind))).ToArray());
     }
+
+    /// <summary>How a trial that reaches into an EDF+D gap is described among the dropped trials.</summary>
+    internal const string UnrecordedKind = "unrecorded (a gap between EDF+D data records)";
 
     private static void CheckChannels(string path, IReadOnlyList<string> flat, int channelCount)
     {

@@ -89,6 +89,9 @@ public sealed class LoadedInput
         return copy;
     }
 
+    /// <summary>The runs of unusable samples attached by <see cref="WithUnusableRuns"/>; empty when none are.</summary>
+    public IReadOnlyList<(int Channel, int Start, int Length, string Kind)> UnusableRuns => _unusable;
+
     /// <summary>
     /// The input without the events whose trial, padding included, holds an unusable sample (see
     /// <see cref="WithUnusableRuns"/>), each listed with its reason among the dropped trials of its condition.

@@ -169,7 +169,7 @@ public class EdfReaderTests
     }
 
     [Fact]
-    public void Discontinuous_EDF_plus_is_refused_clearly()
+    public void Discontinuous_EDF_plus_is_refused_clearly_by_the_whole_file_read()
     {
         using var tmp = new TempFolder();
         var b = new EdfBuilder { Reserved = "EDF+D" };
@@ -180,7 +180,7 @@ public class EdfReaderTests
         File.WriteAllBytes(path, b.Build());
         var e = Assert.Throws<InputException>(() => EdfReader.Read(path));
         Assert.Contains("EDF+D", e.Message);
-        Assert.Contains("not supported", e.Message);
+        Assert.Contains("read only through a plan", e.Message);
         Assert.True(EdfReader.ReadHeader(path).IsDiscontinuous);
     }
 

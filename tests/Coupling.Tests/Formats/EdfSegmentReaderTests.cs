@@ -171,4 +171,98 @@ public class EdfSegmentReaderTests
         Assert.Contains("truncated EDF file", e.Message);
         Assert.Contains($"{bytes.Length - 10} bytes", e.Message);
     }
+    /// <summary>
+    /// An EDF+D file of 1 s records, 8 samples each, two data signals and an annotation signal, with records stamped at
+    /// <paramref name="stamps"/> s (the time-keeping TAL "+t" of EDF+, Kemp and Olivan 2003, section 2.2.4) and a "cue"
+    /// annotation 0.25 s into record 1. Sample k of record r of signal c holds the digital value 100·r + 10·c + k.
+    /// </summary>
+    private static EdfBuilder Discontinuous(params double[] stamps)
+    {
+        var b = new EdfBuilder { Reserved = "EDF+D" };
+        b.Signals.Add(new("EEG Fz", "uV", "-3276.8", "3276.7", "-32768", "32767", 8));
+        b.Signals.Add(new("EEG Cz", "uV", "-3276.8", "3276.7", "-32768", "32767", 8));
+        b.Signals.Add(new("EDF Annotations", "", "-1", "1", "-32768", "32767", 20));
+        for (int r = 0; r < stamps.Length; r++)
+        {
+            string stamp = "+" + stamps[r].ToString(System.Globalization.CultureInfo.InvariantCulture);
+            var annotation = new byte[40];
+            EdfBuilder.Tal(stamp + "||").CopyTo(annotation, 0);
+            if (r == 1) EdfBuilder.Tal($"+{(stamps[1] + 0.25).ToString(System.Globalization.CultureInfo.InvariantCulture)}|cue|")
+                .CopyTo(annotation, EdfBuilder.Tal(stamp + "||").Length);
+            b.Records.Add([Values(r, 0), Values(r, 1), annotation]);
+        }
+        return b;
+    }
+
+    private static short[] Values(int record, int channel) => Enumerable.Range(0, 8).Select(k => (short)(100 * record + 10 * channel + k)).ToArray();
+
+    [Fact]
+    public void EDF_plus_D_records_are_placed_at_their_time_stamps_and_the_gaps_read_as_NaN()
+    {
+        // Records at 0, 1, 3.5 and 4.5 s (8 Hz): the third starts at sample 28, so samples 16..27 were never recorded.
+        // Physical value = digital value · 0.1 (range 6553.5 over 65535 steps, Kemp et al. 1992).
+        using var tmp = new TempFolder();
+        string path = tmp.File("d.edf");
+        File.WriteAllBytes(path, Discontinuous(0, 1, 3.5, 4.5).Build());
+        var reader = EdfSegmentReader.Open(path);
+        Assert.Equal(8, reader.SampleRate);
+        Assert.Equal(28 + 16, reader.SampleCount);
+        Assert.Equal([(16, 12)], reader.Gaps);
+        Assert.Contains(reader.Notes, n => n.StartsWith("EDF+D: 1 gap(s) between data records, 1.5 s in all (first from 2 s, 1.5 s long)", StringComparison.Ordinal));
+        // The cue 0.25 s into the record stamped 1 s: onsets are measured from the first record (EdfReader's convention).
+        Assert.Equal(1.25, Assert.Single(reader.Events).Onset, 12);
+
+        var all = new double[2 * reader.SampleCount];
+        reader.Read(0, reader.SampleCount, all);
+        for (int c = 0; c < 2; c++)
+            for (int i = 0; i < reader.SampleCount; i++)
+            {
+                double value = all[c * reader.SampleCount + i];
+                int record = i < 16 ? i / 8 : i >= 28 ? 2 + (i - 28) / 8 : -1;
+                if (record < 0) Assert.True(double.IsNaN(value), $"sample {i} lies in the gap");
+                else Assert.Equal(0.1 * (100 * record + 10 * c + (i < 16 ? i % 8 : (i - 28) % 8)), value, 9);
+            }
+        // A segment inside the gap, one across its end, and one after it.
+        var inside = new double[2 * 4];
+        reader.Read(18, 4, inside);
+        Assert.All(inside, v => Assert.True(double.IsNaN(v)));
+        var across = new double[2 * 3];
+        reader.Read(26, 3, across);
+        Assert.True(double.IsNaN(across[0]) && double.IsNaN(across[1]));
+        Assert.Equal(0.1 * 200, across[2], 9);
+        var after = new double[2 * 2];
+        reader.Read(36, 2, after);
+        Assert.Equal(0.1 * 300, after[0], 9);
+        Assert.Equal(0.1 * 310, after[2], 9);
+    }
+
+    [Fact]
+    public void EDF_plus_D_records_that_follow_on_read_as_the_same_file_marked_continuous()
+    {
+        using var tmp = new TempFolder();
+        var d = Discontinuous(0, 1, 2);
+        File.WriteAllBytes(tmp.File("d.edf"), d.Build());
+        d.Reserved = "EDF+C";
+        File.WriteAllBytes(tmp.File("c.edf"), d.Build());
+        var discontinuous = EdfSegmentReader.Open(tmp.File("d.edf"));
+        var continuous = EdfSegmentReader.Open(tmp.File("c.edf"));
+        Assert.Empty(discontinuous.Gaps);
+        Assert.Equal(continuous.SampleCount, discontinuous.SampleCount);
+        var a = new double[2 * 24];
+        var b = new double[2 * 24];
+        discontinuous.Read(0, 24, a);
+        continuous.Read(0, 24, b);
+        Assert.Equal(b, a);
+        Assert.Equal(continuous.Events, discontinuous.Events);
+    }
+
+    [Fact]
+    public void EDF_plus_D_records_that_overlap_are_refused_naming_the_record()
+    {
+        using var tmp = new TempFolder();
+        string path = tmp.File("d.edf");
+        File.WriteAllBytes(path, Discontinuous(0, 1, 1.5).Build());
+        var e = Assert.Throws<InputException>(() => EdfSegmentReader.Open(path));
+        Assert.Contains("EDF+D data record 3 starts at 1.5 s after the first, before the record ahead of it ends (2 s)", e.Message);
+    }
 }
