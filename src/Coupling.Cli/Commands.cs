@@ -88,8 +88,7 @@ internal static class Commands
         string ext = Path.GetExtension(file).ToLowerInvariant();
         RecordingSummary? summary = ext switch
         {
-            ".edf" => RecordingSummary.Describe(EdfReader.ReadHeader(file), EdfReader.ReadEvents(file))
-                .WithSidecars(RecordingSidecars.FindBesides(file)),
+            ".edf" => DescribeEdf(file).WithSidecars(RecordingSidecars.FindBesides(file)),
             ".csv" => RecordingSummary.Describe(CsvRecording.Read(file, rate ?? throw new InputException($"{file}: a CSV file carries no sampling rate; give --rate in Hz.")), "CSV")
                 .WithSidecars(RecordingSidecars.FindBesides(file)),
             ".npy" => null,
@@ -108,6 +107,16 @@ internal static class Commands
         }
         foreach (var line in summary.Format()) output.WriteLine(line);
         return 0;
+    }
+
+    /// <summary>An EDF file's summary; for EDF+D with the gaps between its records (placed as a run places them).</summary>
+    private static RecordingSummary DescribeEdf(string file)
+    {
+        var header = EdfReader.ReadHeader(file);
+        var summary = RecordingSummary.Describe(header, EdfReader.ReadEvents(file));
+        if (!header.IsDiscontinuous) return summary;
+        var placed = EdfSegmentReader.Open(file);
+        return summary with { Notes = summary.Notes.Concat(placed.Notes.Where(n => n.StartsWith("EDF+D", StringComparison.Ordinal))).ToArray() };
     }
 
     private static RunOutcome Execute(Plan plan, int threads, string commandLine, TextWriter error, bool restart, Verbosity verbosity)

@@ -80,6 +80,18 @@ public sealed class BadInputCatalogueTests
         return b;
     }
 
+    /// <summary>Marks the file EDF+D and stamps record r at <paramref name="stamp"/>(r) s, moving the cue of odd records with it.</summary>
+    private static void Discontinuous(EdfBuilder b, Func<int, double> stamp)
+    {
+        b.Reserved = "EDF+D";
+        for (int r = 0; r < b.Records.Count; r++)
+        {
+            string at = stamp(r).ToString(System.Globalization.CultureInfo.InvariantCulture);
+            string cue = (stamp(r) + 0.25).ToString(System.Globalization.CultureInfo.InvariantCulture);
+            b.Records[r][2] = r % 2 == 1 ? Annotation($"+{at}||", $"+{cue}|cue|") : Annotation($"+{at}||");
+        }
+    }
+
     private static short[] Samples(int record, int channel) =>
         Enumerable.Range(0, 16).Select(k => (short)(1000 * Math.Sin(0.7 * (16 * record + k) + channel * 1.3 + k * k * 0.01 * channel))).ToArray();
 
@@ -136,7 +148,9 @@ public sealed class BadInputCatalogueTests
         // EDF data records
         ["edf-truncated"] = c => { File.WriteAllBytes(c["rec.edf"], Edf()[..^100]); return ["inspect", c["rec.edf"]]; },
         ["edf-lying-record-count"] = c => c.InspectEdf(b => Put(b, 236, "99999999", 8)),
-        ["edf-discontinuous"] = c => c.RunEdf(b => b.Reserved = "EDF+D"),
+        // EDF+D (Kemp and Olivan 2003, section 2.2.4): the records' time stamps place them; 0..3 s and 4..7 s leave a gap.
+        ["edf-discontinuous-gap"] = c => c.RunEdf(b => Discontinuous(b, r => r < 3 ? r : r + 1)),
+        ["edf-discontinuous-overlap"] = c => c.RunEdf(b => Discontinuous(b, r => r < 3 ? r : r - 0.5)),
         ["edf-unknown-channel"] = c => c.RunEdf(_ => { }, "channels: [EEG A1, EEG A9]\n"),
         // EDF+ annotations (Kemp and Olivan 2003, section 2.2)
         ["annotation-not-closed"] = c => c.InspectEdfBuilt(b => b.Records[1][2] = Enumerable.Repeat((byte)'+', 60).ToArray()),

@@ -91,6 +91,20 @@ public sealed class CommandLineTests
     }
 
     [Fact]
+    public void Inspect_of_an_EDF_plus_D_file_names_its_gaps()
+    {
+        // Records stamped 0, 1 and 3.5 s (EdfSegmentReaderTests.Discontinuous: 1 s records of 8 samples).
+        using var folder = new TempFolder();
+        string path = folder["d.edf"];
+        File.WriteAllBytes(path, Coupling.Tests.Formats.EdfSegmentReaderTests.Discontinuous(0, 1, 3.5).Build());
+        var (code, output, err) = Run("inspect", path);
+        Assert.True(code == 0, err);
+        var lines = output.Split('\n').Select(l => l.TrimEnd()).ToArray();
+        Assert.Contains("format: EDF+D", lines);
+        Assert.Contains("  EDF+D: 1 gap(s) between data records, 1.5 s in all (first from 2 s, 1.5 s long); trials that reach into a gap cannot be analysed.", lines);
+    }
+
+    [Fact]
     public void Inspect_of_a_csv_without_a_rate_exits_with_2()
     {
         using var folder = new TempFolder();

@@ -176,7 +176,7 @@ public class EdfSegmentReaderTests
     /// <paramref name="stamps"/> s (the time-keeping TAL "+t" of EDF+, Kemp and Olivan 2003, section 2.2.4) and a "cue"
     /// annotation 0.25 s into record 1. Sample k of record r of signal c holds the digital value 100·r + 10·c + k.
     /// </summary>
-    private static EdfBuilder Discontinuous(params double[] stamps)
+    internal static EdfBuilder Discontinuous(params double[] stamps)
     {
         var b = new EdfBuilder { Reserved = "EDF+D" };
         b.Signals.Add(new("EEG Fz", "uV", "-3276.8", "3276.7", "-32768", "32767", 8));
