@@ -88,11 +88,11 @@ internal static class Commands
         string ext = Path.GetExtension(file).ToLowerInvariant();
         RecordingSummary? summary = ext switch
         {
-            ".edf" => DescribeEdf(file).WithSidecars(RecordingSidecars.FindBesides(file)),
+            ".edf" or ".bdf" => DescribeEdf(file).WithSidecars(RecordingSidecars.FindBesides(file)),
             ".csv" => RecordingSummary.Describe(CsvRecording.Read(file, rate ?? throw new InputException($"{file}: a CSV file carries no sampling rate; give --rate in Hz.")), "CSV")
                 .WithSidecars(RecordingSidecars.FindBesides(file)),
             ".npy" => null,
-            _ => throw new InputException($"{file}: unknown extension '{ext}'; expected .edf, .csv or .npy."),
+            _ => throw new InputException($"{file}: unknown extension '{ext}'; expected .edf, .bdf, .csv or .npy."),
         };
         if (summary is null)
         {
@@ -116,7 +116,7 @@ internal static class Commands
         var summary = RecordingSummary.Describe(header, EdfReader.ReadEvents(file));
         if (!header.IsDiscontinuous) return summary;
         var placed = EdfSegmentReader.Open(file);
-        return summary with { Notes = summary.Notes.Concat(placed.Notes.Where(n => n.StartsWith("EDF+D", StringComparison.Ordinal))).ToArray() };
+        return summary with { Notes = summary.Notes.Concat(placed.Notes.Where(n => n.StartsWith(header.FormatName + ":", StringComparison.Ordinal))).ToArray() };
     }
 
     private static RunOutcome Execute(Plan plan, int threads, string commandLine, TextWriter error, bool restart, Verbosity verbosity)

@@ -61,8 +61,8 @@ public static class EdfReader
             for (int c = 0; c < selected.Length; c++)
             {
                 var s = header.Signals[selected[c]];
-                var bytes = record.Slice(offsets[selected[c]], 2 * s.SamplesPerRecord);
-                ScaleInto(bytes, s.DigitalMinimum, gains[c], s.PhysicalMinimum, samples[c].AsSpan(r * s.SamplesPerRecord, s.SamplesPerRecord));
+                var bytes = record.Slice(offsets[selected[c]], header.BytesPerSample * s.SamplesPerRecord);
+                ScaleInto(bytes, header.BytesPerSample, s.DigitalMinimum, gains[c], s.PhysicalMinimum, samples[c].AsSpan(r * s.SamplesPerRecord, s.SamplesPerRecord));
             }
         });
         var channels = selected.Select(i => ToChannel(header.Signals[i])).ToArray();
@@ -95,9 +95,9 @@ public static class EdfReader
     {
         string path = header.Source;
         if (header.IsDiscontinuous && !allowDiscontinuous)
-            throw new InputException($"{path}: EDF+D (discontinuous) files are read only through a plan (a run or check), which places each data record at its time stamp; this reader takes EDF and EDF+C.");
+            throw new InputException($"{path}: {header.FormatName} (discontinuous) files are read only through a plan (a run or check), which places each data record at its time stamp; this reader takes continuous files.");
         if (header.IsDiscontinuous && !header.Signals.Any(s => s.IsAnnotation))
-            throw new InputException($"{path}: an EDF+D file needs an annotation signal ('EDF Annotations') whose time stamps place its data records; this one has none.");
+            throw new InputException($"{path}: a {header.FormatName} file needs an annotation signal ('EDF Annotations') whose time stamps place its data records; this one has none.");
         var selected = SelectSignals(header, selectedChannels, notes);
         if (header.RecordDuration <= 0)
             throw new InputException($"{path}: header field 'duration of a data record' at byte 244 is {Text(header.RecordDuration)}; a file with data signals needs a positive record duration.");
@@ -173,7 +173,7 @@ public static class EdfReader
     {
         var signals = header.Signals;
         var offsets = new int[signals.Count];
-        for (int i = 1; i < signals.Count; i++) offsets[i] = offsets[i - 1] + 2 * signals[i - 1].SamplesPerRecord;
+        for (int i = 1; i < signals.Count; i++) offsets[i] = offsets[i - 1] + header.BytesPerSample * signals[i - 1].SamplesPerRecord;
         return offsets;
     }
 
@@ -214,7 +214,7 @@ public static class EdfReader
                 for (int a = 0; a < annotationSignals.Length; a++)
                 {
                     var s = signals[annotationSignals[a]];
-                    var bytes = record.Slice(offsets[annotationSignals[a]], 2 * s.SamplesPerRecord);
+                    var bytes = record.Slice(offsets[annotationSignals[a]], header.BytesPerSample * s.SamplesPerRecord);
                     double? stamp = EdfAnnotations.Parse(bytes, a == 0, found,
                         (offset, what) => new InputException($"{header.Source}: annotation signal {annotationSignals[a] + 1} in data record {r + 1} (byte {header.HeaderBytes + (long)r * recordBytes + offsets[annotationSignals[a]] + offset}): {what}."));
                     if (a == 0)
@@ -253,14 +253,25 @@ public static class EdfReader
     }
 
     /// <summary>phys = (dig - digMin) * gain + physMin, gain = (physMax - physMin) / (digMax - digMin).</summary>
-    internal static void ScaleInto(ReadOnlySpan<byte> bytes, int digitalMinimum, double gain, double physicalMinimum, Span<double> target)
+    /// <param name="bytes">The samples, <paramref name="width"/> bytes each.</param>
+    /// <param name="width">2 for EDF, 3 for BDF (<see cref="Digital"/>).</param>
+    /// <param name="digitalMinimum">The signal's digital minimum.</param>
+    /// <param name="gain">The signal's resolution, physical units per digital step.</param>
+    /// <param name="physicalMinimum">The signal's physical minimum.</param>
+    /// <param name="target">Receives one physical value per sample.</param>
+    internal static void ScaleInto(ReadOnlySpan<byte> bytes, int width, int digitalMinimum, double gain, double physicalMinimum, Span<double> target)
     {
         for (int i = 0; i < target.Length; i++)
-        {
-            int dig = BinaryPrimitives.ReadInt16LittleEndian(bytes.Slice(2 * i, 2));
-            target[i] = (dig - digitalMinimum) * gain + physicalMinimum;
-        }
+            target[i] = (Digital(bytes, i, width) - digitalMinimum) * gain + physicalMinimum;
     }
+
+    /// <summary>
+    /// Digital value <paramref name="i"/> of <paramref name="bytes"/>: a little-endian two's-complement integer of
+    /// <paramref name="width"/> bytes, 16-bit for EDF (Kemp et al. 1992) and 24-bit for BDF.
+    /// </summary>
+    internal static int Digital(ReadOnlySpan<byte> bytes, int i, int width) => width == 2
+        ? BinaryPrimitives.ReadInt16LittleEndian(bytes.Slice(2 * i, 2))
+        : bytes[3 * i] | bytes[3 * i + 1] << 8 | (sbyte)bytes[3 * i + 2] << 16;
 
     /// <summary>Longest data record supported (bytes); a record is read into memory whole.</summary>
     internal const long MaxRecordBytes = 64L << 20;
@@ -275,7 +286,10 @@ public static class EdfReader
         stream.ReadExactly(fixedPart);
         var f = new FieldReader(path, fixedPart, 0);
 
-        string version = f.Text(0, 8, "version");
+        // BDF (BioSemi, 24-bit): the version field is byte 0xFF and then "BIOSEMI".
+        bool bdf = fixedPart[0] == 0xFF && fixedPart.AsSpan(1, 7).SequenceEqual("BIOSEMI"u8);
+        int width = bdf ? 3 : 2;
+        string version = bdf ? "BIOSEMI" : f.Text(0, 8, "version");
         string patient = f.Text(8, 80, "local patient identification");
         string recording = f.Text(88, 80, "local recording identification");
         string date = f.Text(168, 8, "startdate");
@@ -322,11 +336,13 @@ public static class EdfReader
             string who = $"signal {i + 1} ('{labels[i]}')";
             if (dMin[i] >= dMax[i])
                 throw new InputException($"{path}: {who} has digital minimum {dMin[i]} (byte {At(dMinAt, 8, i)}) not below digital maximum {dMax[i]} (byte {At(dMaxAt, 8, i)}).");
-            if (dMin[i] < short.MinValue || dMax[i] > short.MaxValue)
+            if (!bdf && (dMin[i] < short.MinValue || dMax[i] > short.MaxValue))
                 throw new InputException($"{path}: {who} has digital range {dMin[i]}..{dMax[i]} (bytes {At(dMinAt, 8, i)}, {At(dMaxAt, 8, i)}); 16-bit EDF allows -32768..32767.");
+            if (bdf && (dMin[i] < -(1 << 23) || dMax[i] > (1 << 23) - 1))
+                throw new InputException($"{path}: {who} has digital range {dMin[i]}..{dMax[i]} (bytes {At(dMinAt, 8, i)}, {At(dMaxAt, 8, i)}); 24-bit BDF allows -8388608..8388607.");
             if (spr[i] < 1)
                 throw new InputException($"{path}: {who} has {spr[i]} samples per data record (byte {At(sprAt, 8, i)}); expected at least 1.");
-            bool annotation = labels[i] == EdfSignalHeader.AnnotationLabel;
+            bool annotation = EdfSignalHeader.IsAnnotationLabel(labels[i]);
             if (!annotation)
             {
                 if (!double.IsFinite(pMin[i]) || !double.IsFinite(pMax[i]) || pMin[i] == pMax[i]
@@ -338,7 +354,7 @@ public static class EdfReader
                 prefilters[i], spr[i], reservedSignal[i], rate);
         }
 
-        long recordBytes = signals.Sum(s => 2L * s.SamplesPerRecord);
+        long recordBytes = signals.Sum(s => (long)width * s.SamplesPerRecord);
         // Checked against the file length before anything is sized from it: a header may promise more than the file holds.
         if (recordBytes > MaxRecordBytes)
             throw new InputException($"{path}: header fields 'number of samples in each data record' make a data record {recordBytes} bytes long; at most {MaxRecordBytes} are supported.");
@@ -358,7 +374,7 @@ public static class EdfReader
         }
 
         var start = ParseStart(path, date, time, recording, reserved);
-        return new EdfHeader(path, version, patient, recording, start, headerBytes, reserved, recordCount, duration, signals);
+        return new EdfHeader(path, version, patient, recording, start, headerBytes, reserved, recordCount, duration, signals) { BytesPerSample = width };
     }
 
     private static DateTime ParseStart(string path, string date, string time, string recordingId, string reserved)
@@ -372,7 +388,7 @@ public static class EdfReader
                 && int.TryParse(parts[1], NumberStyles.None, CultureInfo.InvariantCulture, out b)
                 && int.TryParse(parts[2], NumberStyles.None, CultureInfo.InvariantCulture, out c);
         }
-        bool edfPlus = reserved.StartsWith("EDF+", StringComparison.Ordinal);
+        bool edfPlus = reserved.StartsWith("EDF+", StringComparison.Ordinal) || reserved.StartsWith("BDF+", StringComparison.Ordinal);
         int day, month, yy;
         // EDF+ allows "yy" in the year place after 2084; the recording id then carries the four-digit year.
         if (!Three(date, out day, out month, out yy) && !(edfPlus && date.EndsWith(".yy", StringComparison.Ordinal)

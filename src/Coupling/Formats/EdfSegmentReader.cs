@@ -74,6 +74,7 @@ public sealed class EdfSegmentReader : ISampleSource
         if (perChannel > int.MaxValue)
             throw new InputException($"{path}: {perChannel} samples per signal is more than a sample index can count; select a shorter file.");
         bool discontinuous = header.IsDiscontinuous;
+        int width = header.BytesPerSample;
         var stamps = discontinuous ? new double[header.RecordCount] : null;
         var recordStarts = discontinuous ? new int[header.RecordCount] : null;
         var gaps = new List<(int Start, int Length)>();
@@ -98,7 +99,7 @@ public sealed class EdfSegmentReader : ISampleSource
             long start = (long)r * perRecord;
             if (recordStarts is not null)
             {
-                start = PlaceRecord(path, r, stamps![r], sampleRate, end, perRecord, ref offGrid);
+                start = PlaceRecord(header, r, stamps![r], sampleRate, end, perRecord, ref offGrid);
                 if (start > end)
                 {
                     // A gap: clipping runs do not continue across it.
@@ -112,10 +113,10 @@ public sealed class EdfSegmentReader : ISampleSource
             for (int c = 0; c < selected.Length; c++)
             {
                 var s = signals[selected[c]];
-                var bytes = record.Slice(offsets[selected[c]], 2 * perRecord);
+                var bytes = record.Slice(offsets[selected[c]], width * perRecord);
                 for (int i = 0; i < perRecord; i++)
                 {
-                    int d = BinaryPrimitives.ReadInt16LittleEndian(bytes.Slice(2 * i, 2));
+                    int d = EdfReader.Digital(bytes, i, width);
                     int at = (int)start + i;
                     bool limit = d == s.DigitalMinimum || d == s.DigitalMaximum;
                     if (runStart[c] >= 0 && (!limit || d != runValue[c])) Close(c, at);
@@ -126,7 +127,7 @@ public sealed class EdfSegmentReader : ISampleSource
             {
                 if (!flat[c]) continue;
                 var s = signals[selected[c]];
-                EdfReader.ScaleInto(record.Slice(offsets[selected[c]], 2 * perRecord), s.DigitalMinimum, s.Resolution, s.PhysicalMinimum, scratch);
+                EdfReader.ScaleInto(record.Slice(offsets[selected[c]], width * perRecord), width, s.DigitalMinimum, s.Resolution, s.PhysicalMinimum, scratch);
                 if (r == 0) first[c] = scratch[0];
                 if (scratch.AsSpan().IndexOfAnyExcept(first[c]) >= 0) flat[c] = false;
             }
@@ -136,10 +137,10 @@ public sealed class EdfSegmentReader : ISampleSource
         {
             long missing = gaps.Sum(g => (long)g.Length);
             notes.Add(string.Create(CultureInfo.InvariantCulture,
-                $"EDF+D: {gaps.Count} gap(s) between data records, {missing / sampleRate:0.###} s in all (first from {gaps[0].Start / sampleRate:0.###} s, {gaps[0].Length / sampleRate:0.###} s long); trials that reach into a gap cannot be analysed."));
+                $"{header.FormatName}: {gaps.Count} gap(s) between data records, {missing / sampleRate:0.###} s in all (first from {gaps[0].Start / sampleRate:0.###} s, {gaps[0].Length / sampleRate:0.###} s long); trials that reach into a gap cannot be analysed."));
         }
         if (offGrid > 0)
-            notes.Add($"EDF+D: {offGrid} data record(s) start off the sampling grid by more than a hundredth of a sample; each was placed at the nearest sample.");
+            notes.Add($"{header.FormatName}: {offGrid} data record(s) start off the sampling grid by more than a hundredth of a sample; each was placed at the nearest sample.");
         var channels = selected.Select(i => EdfReader.ToChannel(signals[i])).ToArray();
         return new EdfSegmentReader(header, perRecord, sampleRate, selected, channels, flat, clipped, events, notes, (int)end, recordStarts, gaps);
     }
@@ -148,16 +149,17 @@ public sealed class EdfSegmentReader : ISampleSource
     /// The first sample of EDF+D data record <paramref name="r"/>: its stamp (seconds from the first record's) times the
     /// rate, rounded; refused when it would overlap the record before (which ends at <paramref name="end"/>).
     /// </summary>
-    private static long PlaceRecord(string path, int r, double stamp, double rate, long end, int perRecord, ref int offGrid)
+    private static long PlaceRecord(EdfHeader header, int r, double stamp, double rate, long end, int perRecord, ref int offGrid)
     {
+        string path = header.Source;
         double exact = stamp * rate;
         long start = (long)Math.Round(exact);
         if (Math.Abs(exact - start) > 0.01) offGrid++;
         if (start < end)
             throw new InputException(string.Create(CultureInfo.InvariantCulture,
-                $"{path}: EDF+D data record {r + 1} starts at {stamp:0.######} s after the first, before the record ahead of it ends ({end / rate:0.######} s); records must follow each other in time without overlapping."));
+                $"{path}: {header.FormatName} data record {r + 1} starts at {stamp:0.######} s after the first, before the record ahead of it ends ({end / rate:0.######} s); records must follow each other in time without overlapping."));
         if (start + perRecord > int.MaxValue)
-            throw new InputException($"{path}: EDF+D data record {r + 1} lies more than a sample index can count from the first; select a shorter file.");
+            throw new InputException($"{path}: {header.FormatName} data record {r + 1} lies more than a sample index can count from the first; select a shorter file.");
         return start;
     }
 
@@ -260,8 +262,9 @@ public sealed class EdfSegmentReader : ISampleSource
                     for (int c = 0; c < _signals.Length; c++)
                     {
                         var s = signals[_signals[c]];
-                        var bytes = record.Slice(_offsets[_signals[c]] + 2 * (int)(lo - recordStart), 2 * (hi - lo));
-                        EdfReader.ScaleInto(bytes, s.DigitalMinimum, s.Resolution, s.PhysicalMinimum, target.Slice(c * length + lo - firstSample, hi - lo));
+                        int width = Header.BytesPerSample;
+                        var bytes = record.Slice(_offsets[_signals[c]] + width * (int)(lo - recordStart), width * (hi - lo));
+                        EdfReader.ScaleInto(bytes, width, s.DigitalMinimum, s.Resolution, s.PhysicalMinimum, target.Slice(c * length + lo - firstSample, hi - lo));
                     }
                 }
             }

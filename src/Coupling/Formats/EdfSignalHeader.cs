@@ -28,8 +28,15 @@ public sealed record EdfSignalHeader(
     /// <summary>The label EDF+ reserves for annotation signals.</summary>
     public const string AnnotationLabel = "EDF Annotations";
 
-    /// <summary>True for an EDF+ annotation signal (label "EDF Annotations"), which carries text, not samples.</summary>
-    public bool IsAnnotation => string.Equals(Label, AnnotationLabel, StringComparison.Ordinal);
+    /// <summary>True for an EDF+ or BDF+ annotation signal (label "EDF Annotations" or "BDF Annotations"), which carries text, not samples.</summary>
+    public bool IsAnnotation => IsAnnotationLabel(Label);
+
+    /// <summary>The label of a BDF+ file's annotation signal (BDF+ follows EDF+ with "BDF" in place of "EDF").</summary>
+    public const string BdfAnnotationLabel = "BDF Annotations";
+
+    /// <summary>Whether <paramref name="label"/> (trimmed) names an annotation signal: "EDF Annotations" or "BDF Annotations".</summary>
+    public static bool IsAnnotationLabel(string label) =>
+        string.Equals(label, AnnotationLabel, StringComparison.Ordinal) || string.Equals(label, BdfAnnotationLabel, StringComparison.Ordinal);
 
     /// <summary>
     /// Physical units per digital step: (physical max - physical min) / (digital max - digital min).

@@ -22,7 +22,7 @@ public static class InputLoader
         if (ext == ".npy") return LoadEpochs(plan);
 
         var sidecars = RecordingSidecars.FindBesides(path);
-        if (ext == ".edf") return LoadEdf(plan, sidecars);
+        if (ext is ".edf" or ".bdf") return LoadEdf(plan, sidecars);
         var recording = CsvRecording.Read(path, plan.SampleRate!.Value, allowNonFinite: plan.UnusableData != UnusableData.Refuse);
         if (plan.Channels is not null) recording = Select(recording, plan.Channels);
 
@@ -104,7 +104,7 @@ public static class InputLoader
         {
             var gap = reader.Gaps[0];
             throw new InputException(string.Create(CultureInfo.InvariantCulture,
-                $"{plan.Where("unusable_data")}: '{path}' is EDF+D with {reader.Gaps.Count} gap(s) between its data records (the first from {gap.Start / reader.SampleRate:0.###} s, {gap.Length / reader.SampleRate:0.###} s long), where nothing was recorded; give 'unusable_data: drop-trials' to leave out the trials (with their padding) that reach into a gap."));
+                $"{plan.Where("unusable_data")}: '{path}' is {reader.Header.FormatName} with {reader.Gaps.Count} gap(s) between its data records (the first from {gap.Start / reader.SampleRate:0.###} s, {gap.Length / reader.SampleRate:0.###} s long), where nothing was recorded; give 'unusable_data: drop-trials' to leave out the trials (with their padding) that reach into a gap."));
         }
         if (plan.UnusableData == UnusableData.Refuse)
         {
@@ -123,7 +123,7 @@ public static class InputLoader
     }
 
     /// <summary>How a trial that reaches into an EDF+D gap is described among the dropped trials.</summary>
-    internal const string UnrecordedKind = "unrecorded (a gap between EDF+D data records)";
+    internal const string UnrecordedKind = "unrecorded (a gap between data records)";
 
     private static void CheckChannels(string path, IReadOnlyList<string> flat, int channelCount)
     {

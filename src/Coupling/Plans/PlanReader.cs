@@ -62,8 +62,8 @@ public static class PlanReader
 
         string recording = ctx.Path(ctx.Required(map, root, "recording", "the plan"), "recording");
         string ext = System.IO.Path.GetExtension(recording).ToLowerInvariant();
-        if (ext is not (".edf" or ".csv" or ".npy"))
-            throw ctx.Error(map["recording"], "recording", $"'{recording}' has extension '{ext}'; expected .edf (EDF/EDF+), .csv or .npy");
+        if (ext is not (".edf" or ".bdf" or ".csv" or ".npy"))
+            throw ctx.Error(map["recording"], "recording", $"'{recording}' has extension '{ext}'; expected .edf (EDF/EDF+), .bdf (BDF/BDF+), .csv or .npy");
 
         double? sampleRate = map.TryGetValue("sample_rate", out var sr) ? ctx.Positive(sr, "sample_rate") : null;
         if (ext is ".csv" or ".npy" && sampleRate is null)

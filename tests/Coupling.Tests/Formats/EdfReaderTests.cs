@@ -251,4 +251,57 @@ public class EdfReaderTests
         Assert.Contains("data record 2", e.Message);
         Assert.Contains("onset '1.0'", e.Message);
     }
+    [Fact]
+    public void BDF_plus_written_by_EDFlib_gives_its_24_bit_values_and_annotations()
+    {
+        // Independent writer: EDFlib 1.23 (EDFLIB_FILETYPE_BDFPLUS), see Fixtures/Formats/README.md. BDF stores each
+        // sample as a 24-bit little-endian two's-complement integer (BioSemi's BDF description); the version field is
+        // 0xFF "BIOSEMI" and BDF+ marks its reserved field "BDF+C". Physical = (digital − digital min) · gain + physical
+        // min with the header's limits (Kemp et al. 1992), so the digital values come back by inverting that exactly.
+        string path = Fixtures.Path("edflib_bdf.bdf");
+        using var doc = System.Text.Json.JsonDocument.Parse(File.ReadAllText(Fixtures.Path("edflib_bdf.json")));
+        var root = doc.RootElement;
+        var header = EdfReader.ReadHeader(path);
+        Assert.True(header.IsBdf);
+        Assert.Equal("BDF+C", header.FormatName);
+        Assert.Equal(3, header.BytesPerSample);
+        var whole = EdfReader.Read(path);
+        var segments = EdfSegmentReader.Open(path);
+        Assert.Equal(128, whole.SampleRate);
+        for (int s = 0; s < 2; s++)
+        {
+            var expected = root.GetProperty("signals")[s];
+            var signal = header.Signals[s];
+            Assert.Equal(expected.GetProperty("label").GetString(), signal.Label);
+            Assert.Equal(expected.GetProperty("digital_min").GetInt32(), signal.DigitalMinimum);
+            Assert.Equal(expected.GetProperty("digital_max").GetInt32(), signal.DigitalMaximum);
+            // EDFlib writes the physical limits into 8-character fields: equal to about 1e-6.
+            Assert.Equal(expected.GetProperty("physical_max").GetDouble(), signal.PhysicalMaximum, 1e-6 * Math.Abs(signal.PhysicalMaximum));
+            var digital = expected.GetProperty("digital").EnumerateArray().Select(d => d.GetInt32()).ToArray();
+            int large = s == 0 ? 7_000_000 : 80_000;   // the first signal spans nearly all 24 bits
+            Assert.Contains(digital, d => d < -large);
+            Assert.Contains(digital, d => d > large);
+            var read = new double[2 * digital.Length];
+            segments.Read(0, digital.Length, read);
+            for (int i = 0; i < digital.Length; i++)
+            {
+                double physical = whole.Samples[s][i];
+                Assert.Equal(physical, read[s * digital.Length + i]);
+                Assert.Equal(digital[i], (int)Math.Round((physical - signal.PhysicalMinimum) / signal.Resolution + signal.DigitalMinimum));
+            }
+        }
+        var notes = root.GetProperty("annotations").EnumerateArray().ToArray();
+        Assert.Equal(notes.Select(n => n.GetProperty("text").GetString()), whole.Events.Select(e => e.Label));
+        Assert.Equal(notes.Select(n => n.GetProperty("onset").GetDouble()), whole.Events.Select(e => Math.Round(e.Onset, 4)));
+    }
+
+    [Fact]
+    public void BDF_digital_values_are_24_bit_two_s_complement_at_the_limits()
+    {
+        // Bytes (little-endian) → value: 00 00 80 → −8388608, FF FF 7F → 8388607, FF FF FF → −1, 01 00 00 → 1
+        // (two's complement, common practice).
+        byte[] bytes = [0x00, 0x00, 0x80, 0xFF, 0xFF, 0x7F, 0xFF, 0xFF, 0xFF, 0x01, 0x00, 0x00];
+        Assert.Equal([-8388608, 8388607, -1, 1], Enumerable.Range(0, 4).Select(i => EdfReader.Digital(bytes, i, 3)));
+        Assert.Equal([0, -32768], Enumerable.Range(0, 2).Select(i => EdfReader.Digital(new byte[] { 0x00, 0x00, 0x00, 0x80 }, i, 2)));
+    }
 }

@@ -95,7 +95,7 @@ public sealed class DiscontinuousEdfTests : IDisposable
         var summary = Assert.Single(discontinuous.Conditions);
         Assert.Equal(onsets.Length - reaching.Length, summary.Trials);
         Assert.Equal(reaching.Length, summary.Dropped.Count);
-        Assert.All(summary.Dropped, d => Assert.Contains("unrecorded (a gap between EDF+D data records)", d));
+        Assert.All(summary.Dropped, d => Assert.Contains("unrecorded (a gap between data records)", d));
 
         File.WriteAllText(_folder["kept_events.tsv"], EventsTsv(onsets.Except(reaching)));
         var whole = AnalysisRunner.Run(PlanReader.Read(Plan("c", "c.edf", "kept_events.tsv")));

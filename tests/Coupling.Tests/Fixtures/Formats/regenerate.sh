@@ -8,7 +8,9 @@ tmp=$(mktemp -d)
 trap 'rm -rf "$tmp"' EXIT
 gcc -O1 -Wall -o "$tmp/make_edflib_fixture" "$here/make_edflib_fixture.c" -ledf -lm
 gcc -O1 -Wall -o "$tmp/read_with_edflib" "$here/read_with_edflib.c" -ledf
+gcc -O1 -Wall -o "$tmp/make_edflib_bdf_fixture" "$here/make_edflib_bdf_fixture.c" -ledf -lm
 "$tmp/make_edflib_fixture" "$here/edflib_two_rates.edf" "$here/edflib_two_rates.json"
+"$tmp/make_edflib_bdf_fixture" "$here/edflib_bdf.bdf" "$here/edflib_bdf.json"
 /usr/bin/python3 "$here/make_numpy_fixture.py" "$here"
 # The library's own writer output, then EDFlib's reading of it.
 COUPLING_FIXTURE_OUT="$here" dotnet test "$repo/tests/Coupling.Tests" \
