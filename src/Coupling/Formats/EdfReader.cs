@@ -129,10 +129,24 @@ public static class EdfReader
         return "unknown";
     }
 
+    /// <summary>The label of a BDF file's trigger and status signal (BioSemi).</summary>
+    public const string StatusLabel = "Status";
+
+    /// <summary>
+    /// The index of a BDF file's "Status" signal, whose lower 16 bits carry the trigger inputs (BioSemi's BDF
+    /// description, from memory); −1 for EDF files and BDF files without one.
+    /// </summary>
+    internal static int StatusSignal(EdfHeader header) =>
+        header.IsBdf ? header.Signals.ToList().FindIndex(s => s.Label == StatusLabel) : -1;
+
     private static int[] SelectSignals(EdfHeader header, IReadOnlyCollection<string>? selection, List<string> notes)
     {
         var signals = header.Signals;
-        var ordinary = Enumerable.Range(0, signals.Count).Where(i => !signals[i].IsAnnotation).ToList();
+        int status = StatusSignal(header);
+        // The Status signal is selected only when named: it holds trigger codes, not a voltage.
+        var ordinary = Enumerable.Range(0, signals.Count).Where(i => !signals[i].IsAnnotation && (i != status || selection is { Count: > 0 })).ToList();
+        if (status >= 0 && selection is not { Count: > 0 })
+            notes.Add($"The '{StatusLabel}' signal holds trigger codes, not a voltage, and is not analysed; name it in 'channels' to analyse it anyway.");
         if (ordinary.Count == 0)
             throw new InputException($"{header.Source}: the file holds no data signals, only annotations.");
         if (selection is { Count: > 0 })
@@ -198,6 +212,9 @@ public static class EdfReader
 
         var annotationSignals = Enumerable.Range(0, signalCount).Where(i => signals[i].IsAnnotation).ToArray();
         var found = new List<RecordingEvent>();
+        // A BDF file without annotations: events are the trigger codes of its Status signal.
+        int status = annotationSignals.Length == 0 ? StatusSignal(header) : -1;
+        int previousCode = 0;
         var stamps = new double[annotationSignals.Length > 0 ? header.RecordCount : 0];
 
         int recordsPerBlock = Math.Max(1, BlockBytes / Math.Max(1, recordBytes));
@@ -220,17 +237,40 @@ public static class EdfReader
                     if (a == 0)
                         stamps[r] = stamp ?? throw new InputException($"{header.Source}: data record {r + 1} has no time-keeping annotation; EDF+ requires one as the first TAL of every record.");
                 }
+                if (status >= 0)
+                    previousCode = AddTriggers(signals[status], record.Slice(offsets[status], header.BytesPerSample * signals[status].SamplesPerRecord),
+                        header.BytesPerSample, r, previousCode, found);
                 if (recordStamps is not null && stamps.Length > 0) recordStamps[r] = stamps[r] - stamps[0];
                 onRecord?.Invoke(r, record);
             }
         }
 
+        if (status >= 0)
+            notes.Add($"Events from the trigger codes of the '{StatusLabel}' signal (its lower 16 bits): {found.Count} onsets of a new nonzero code, labelled by the code ({string.Join(", ", found.Select(e => e.Label).Distinct().Order(StringComparer.Ordinal).Take(12))}{(found.Select(e => e.Label).Distinct().Count() > 12 ? ", ..." : "")}).");
         double start = stamps.Length > 0 ? stamps[0] : 0.0;
         if (start != 0)
             notes.Add($"The first data record starts {Text(start)} s after the header's start time; event onsets are measured from the first sample.");
         // In an EDF+D file the stamps place the records (with gaps between them): they are not expected to follow on.
         if (!header.IsDiscontinuous) CheckContinuity(header, stamps, notes);
         return found.Select(e => e with { Onset = e.Onset - start }).OrderBy(e => e.Onset).ToArray();
+    }
+
+    /// <summary>
+    /// Adds an event at every sample of data record <paramref name="r"/> of the Status signal where the trigger code (the
+    /// lower 16 bits of the digital value) changes to a nonzero value, labelled by that value in decimal; returns the last
+    /// sample's code, which the next record continues from.
+    /// </summary>
+    private static int AddTriggers(EdfSignalHeader status, ReadOnlySpan<byte> bytes, int width, int r, int previousCode, List<RecordingEvent> found)
+    {
+        int perRecord = status.SamplesPerRecord;
+        for (int k = 0; k < perRecord; k++)
+        {
+            int code = Digital(bytes, k, width) & 0xFFFF;
+            if (code != previousCode && code != 0)
+                found.Add(new RecordingEvent(((long)r * perRecord + k) / status.SampleRate, 0, code.ToString(CultureInfo.InvariantCulture)));
+            previousCode = code;
+        }
+        return previousCode;
     }
 
     private static void CheckContinuity(EdfHeader header, double[] stamps, List<string> notes)

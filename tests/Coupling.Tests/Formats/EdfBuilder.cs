@@ -12,6 +12,9 @@ internal sealed class EdfBuilder
     public sealed record Signal(string Label, string Dimension, string PhysMin, string PhysMax, string DigMin, string DigMax, int PerRecord);
 
     public string Reserved { get; set; } = "EDF+C";
+
+    /// <summary>Write BDF: version field 0xFF "BIOSEMI" and 24-bit samples (records then give int[] values).</summary>
+    public bool Bdf { get; set; }
     public string Duration { get; set; } = "1";
     public string StartDate { get; set; } = "17.05.21";
     public string StartTime { get; set; } = "13.45.10";
@@ -43,12 +46,21 @@ internal sealed class EdfBuilder
         foreach (var s in Signals) F(s.PerRecord.ToString(CultureInfo.InvariantCulture), 8);
         foreach (var _ in Signals) F("", 32);
         var bytes = new List<byte>(Encoding.ASCII.GetBytes(sb.ToString()));
+        if (Bdf)
+        {
+            bytes[0] = 0xFF;
+            for (int k = 0; k < 7; k++) bytes[1 + k] = (byte)"BIOSEMI"[k];
+        }
+        int width = Bdf ? 3 : 2;
         foreach (var record in Records)
             for (int i = 0; i < ns; i++)
             {
-                var block = new byte[2 * Signals[i].PerRecord];
+                var block = new byte[width * Signals[i].PerRecord];
                 if (record[i] is short[] values)
                     for (int k = 0; k < values.Length; k++) { block[2 * k] = (byte)(values[k] & 0xFF); block[2 * k + 1] = (byte)((values[k] >> 8) & 0xFF); }
+                else if (record[i] is int[] wide)
+                    for (int k = 0; k < wide.Length; k++)
+                        for (int b = 0; b < 3; b++) block[3 * k + b] = (byte)((wide[k] >> (8 * b)) & 0xFF);
                 else
                     ((byte[])record[i]).CopyTo(block, 0);
                 bytes.AddRange(block);

@@ -304,4 +304,32 @@ public class EdfReaderTests
         Assert.Equal([-8388608, 8388607, -1, 1], Enumerable.Range(0, 4).Select(i => EdfReader.Digital(bytes, i, 3)));
         Assert.Equal([0, -32768], Enumerable.Range(0, 2).Select(i => EdfReader.Digital(new byte[] { 0x00, 0x00, 0x00, 0x80 }, i, 2)));
     }
+    [Fact]
+    public void A_BDF_file_without_annotations_takes_its_events_from_the_Status_trigger_codes()
+    {
+        // BioSemi BDF: the "Status" signal's lower 16 bits are the trigger inputs; the upper 8 carry status flags
+        // (BioSemi's BDF description, from memory). An event is each change to a new nonzero code, labelled by the code.
+        // 1 s records of 4 samples at 4 Hz; the Status upper byte is set throughout (0x3F0000 | code) to show it is masked.
+        var b = new EdfBuilder { Bdf = true, Reserved = "24BIT" };
+        b.Signals.Add(new("A1", "uV", "-262144", "262143", "-8388608", "8388607", 4));
+        b.Signals.Add(new("A2", "uV", "-262144", "262143", "-8388608", "8388607", 4));
+        b.Signals.Add(new("Status", "Boolean", "-8388608", "8388607", "-8388608", "8388607", 4));
+        int[][] codes = [[0, 12, 12, 0], [0, 0, 7, 7], [12, 0, 0, 0]];   // onsets at 0.25 s (12), 1.5 s (7), 2.0 s (12)
+        for (int r = 0; r < codes.Length; r++)
+            b.Records.Add([new[] { -5_000_000, 1, -1, 8_000_000 }, new[] { r, r, r, r + 1 }, codes[r].Select(c => 0x3F0000 | c).ToArray()]);
+        using var tmp = new TempFolder();
+        string path = tmp.File("t.bdf");
+        File.WriteAllBytes(path, b.Build());
+
+        var recording = EdfReader.Read(path);
+        Assert.Equal(["A1", "A2"], recording.Channels.Select(c => c.Label));
+        Assert.Equal([(0.25, "12"), (1.5, "7"), (2.0, "12")], recording.Events.Select(e => (e.Onset, e.Label)));
+        Assert.Contains(recording.Notes, n => n.Contains("'Status' signal holds trigger codes", StringComparison.Ordinal));
+        // 24-bit values come back: physical = digital · (524287 / 16777215) + offset, so −5000000 maps below −156000.
+        Assert.Equal(-5_000_000 * (524287.0 / 16777215) + (-262144 + 8388608 * (524287.0 / 16777215)), recording.Samples[0][0], 6);
+        var reader = EdfSegmentReader.Open(path);
+        Assert.Equal(recording.Events, reader.Events);
+        // Named in the selection, Status is read like any signal (its raw codes, scaled).
+        Assert.Equal(["A1", "Status"], EdfReader.Read(path, ["A1", "Status"]).Channels.Select(c => c.Label));
+    }
 }
