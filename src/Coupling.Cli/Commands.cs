@@ -109,14 +109,21 @@ internal static class Commands
         return 0;
     }
 
-    /// <summary>An EDF file's summary; for EDF+D with the gaps between its records (placed as a run places them).</summary>
+    /// <summary>
+    /// An EDF or BDF file's summary; for a discontinuous file with the gaps between its records (placed as a run places
+    /// them), and for a BDF file with a Status signal with what its trigger codes give.
+    /// </summary>
     private static RecordingSummary DescribeEdf(string file)
     {
         var header = EdfReader.ReadHeader(file);
         var summary = RecordingSummary.Describe(header, EdfReader.ReadEvents(file));
-        if (!header.IsDiscontinuous) return summary;
+        if (!header.IsDiscontinuous && EdfReader.StatusSignal(header) < 0) return summary;
         var placed = EdfSegmentReader.Open(file);
-        return summary with { Notes = summary.Notes.Concat(placed.Notes.Where(n => n.StartsWith(header.FormatName + ":", StringComparison.Ordinal))).ToArray() };
+        return summary with
+        {
+            Notes = summary.Notes.Concat(placed.Notes.Where(n => n.StartsWith(header.FormatName + ":", StringComparison.Ordinal)
+                || n.Contains($"'{EdfReader.StatusLabel}' signal", StringComparison.Ordinal))).ToArray(),
+        };
     }
 
     private static RunOutcome Execute(Plan plan, int threads, string commandLine, TextWriter error, bool restart, Verbosity verbosity)

@@ -136,7 +136,7 @@ public static class EdfReader
     /// The index of a BDF file's "Status" signal, whose lower 16 bits carry the trigger inputs (BioSemi's BDF
     /// description, from memory); −1 for EDF files and BDF files without one.
     /// </summary>
-    internal static int StatusSignal(EdfHeader header) =>
+    public static int StatusSignal(EdfHeader header) =>
         header.IsBdf ? header.Signals.ToList().FindIndex(s => s.Label == StatusLabel) : -1;
 
     private static int[] SelectSignals(EdfHeader header, IReadOnlyCollection<string>? selection, List<string> notes)

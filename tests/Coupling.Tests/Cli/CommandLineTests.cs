@@ -105,6 +105,25 @@ public sealed class CommandLineTests
     }
 
     [Fact]
+    public void Inspect_of_a_BDF_file_says_its_events_come_from_the_Status_trigger_codes()
+    {
+        // BDF: version field 0xFF "BIOSEMI", 24-bit samples; two records of 4 samples with codes 3 and 5 in the Status signal.
+        var b = new Coupling.Tests.Formats.EdfBuilder { Bdf = true, Reserved = "24BIT" };
+        b.Signals.Add(new("A1", "uV", "-262144", "262143", "-8388608", "8388607", 4));
+        b.Signals.Add(new("Status", "Boolean", "-8388608", "8388607", "-8388608", "8388607", 4));
+        b.Records.Add([new[] { 1, 2, 3, 4 }, new[] { 0, 3, 3, 0 }]);
+        b.Records.Add([new[] { 1, 2, 3, 4 }, new[] { 5, 0, 0, 0 }]);
+        using var folder = new TempFolder();
+        File.WriteAllBytes(folder["t.bdf"], b.Build());
+        var (code, output, err) = Run("inspect", folder["t.bdf"]);
+        Assert.True(code == 0, err);
+        var lines = output.Split('\n').Select(l => l.TrimEnd()).ToArray();
+        Assert.Contains("format: BDF", lines);
+        Assert.Contains("events: 2 (2 labels)", lines);
+        Assert.Contains(lines, l => l.StartsWith("  Events from the trigger codes of the 'Status' signal (its lower 16 bits): 2 onsets", StringComparison.Ordinal));
+    }
+
+    [Fact]
     public void Inspect_of_a_csv_without_a_rate_exits_with_2()
     {
         using var folder = new TempFolder();
