@@ -11,10 +11,11 @@ namespace Coupling.Statistics;
 /// <para>Benjamini-Hochberg, Benjamini-Yekutieli and no correction use the per-pair p-values only. The maximum statistic
 /// and the network-based statistic need, per draw, the statistic of every pair on a common scale
 /// (<see cref="StudentisedStatistic"/>), whose centre and scale are known only once all draws are summarised: the draws are
-/// therefore made a second time, with the same seed and so the same trial orders (or label splits) and the same values,
-/// and each draw's maximum and largest supra-threshold component are recorded (<see cref="MaxStatistic"/>,
-/// <see cref="NetworkBasedStatistic"/>). This doubles the time of the resampling stage and keeps memory at one value
-/// per draw and family.</para>
+/// therefore kept while drawing (<see cref="KeptDraws"/>, up to <see cref="KeptDraws.LimitBytes"/>) and read back, or,
+/// when they would take more memory than that, made a second time with the same seed and so the same trial orders (or
+/// label splits) and the same values; either way each draw's maximum and largest supra-threshold component are recorded
+/// (<see cref="MaxStatistic"/>, <see cref="NetworkBasedStatistic"/>), and the result is the same. The second pass doubles
+/// the time of the resampling stage and keeps memory at one value per draw and family.</para>
 /// <para>With the Pareto tail option, the upper tails of every pair's draws are kept while drawing
 /// (<see cref="TailSample"/>) and p-values resting on fewer than <see cref="ParetoTail.MinimumExceedances"/> exceedances
 /// are refined by <see cref="ParetoTail"/>.</para>
@@ -35,9 +36,10 @@ public static class FamilyCorrection
         for (int k = 0; k < measures.Count; k++)
             twoSided.AsSpan(k * pairs, pairs).Fill(MeasureCatalog.TailOf(measures[k]) == TestTail.TwoSided);
         var tail = correction.ParetoTail ? new TailSample(cells, TailSample.KeptFor(draws)) : null;
-        var tested = SurrogateTest.RunObserved(set, measures, draws, seed, condition, maxThreads, progress, cancellationToken, tail);
+        var kept = tail is null ? KeptDraws.For(correction, draws, cells) : null;
+        var tested = SurrogateTest.RunObserved(set, measures, draws, seed, condition, maxThreads, progress, cancellationToken, (IDrawObserver?)tail ?? kept);
         var maxima = Replay(correction, tested.Select(t => (t.Observed, t.NullMean, t.NullSd)).ToArray(), twoSided, draws,
-            set.ChannelCount, observer => SurrogateTest.RunObserved(set, measures, draws, seed, condition, maxThreads, progress, cancellationToken, observer));
+            set.ChannelCount, kept, observer => SurrogateTest.RunObserved(set, measures, draws, seed, condition, maxThreads, progress, cancellationToken, observer));
         return tested.Select((t, k) => (t, Finish(correction, level, k, pairs, set.ChannelCount, draws, t.Observed, t.P,
             twoSided[k * pairs], tail, maxima))).ToArray();
     }
@@ -55,9 +57,11 @@ public static class FamilyCorrection
         int pairs = PairIndex.Count(a.ChannelCount), cells = measures.Count * pairs;
         var twoSided = Enumerable.Repeat(true, cells).ToArray();
         var tail = correction.ParetoTail ? new TailSample(cells, TailSample.KeptFor(draws)) : null;
-        var tested = ConditionContrast.RunObserved(a, b, measures, draws, seed, contrast, maxThreads, progress, cancellationToken, tail, subtractEvoked);
+        var kept = tail is null ? KeptDraws.For(correction, draws, cells) : null;
+        var tested = ConditionContrast.RunObserved(a, b, measures, draws, seed, contrast, maxThreads, progress, cancellationToken,
+            (IDrawObserver?)tail ?? kept, subtractEvoked);
         var maxima = Replay(correction, tested.Select(t => (t.Difference, t.NullMean, t.NullSd)).ToArray(), twoSided, draws,
-            a.ChannelCount, observer => ConditionContrast.RunObserved(a, b, measures, draws, seed, contrast, maxThreads, progress, cancellationToken, observer, subtractEvoked));
+            a.ChannelCount, kept, observer => ConditionContrast.RunObserved(a, b, measures, draws, seed, contrast, maxThreads, progress, cancellationToken, observer, subtractEvoked));
         return tested.Select((t, k) => (t, Finish(correction, level, k, pairs, a.ChannelCount, draws, t.Difference, t.P,
             true, tail, maxima))).ToArray();
     }
@@ -85,14 +89,15 @@ public static class FamilyCorrection
 
     private static (FamilyMaxima Maxima, StudentisedStatistic Statistic)? Replay(CorrectionSpec correction,
         (double[] Observed, double[] Mean, double[] Sd)[] families, bool[] twoSided, int draws, int channels,
-        Action<IDrawObserver> run)
+        KeptDraws? kept, Action<IDrawObserver> run)
     {
         if (correction.Method is not (CorrectionMethod.MaxStatistic or CorrectionMethod.NetworkBased)) return null;
         var statistic = new StudentisedStatistic(families.SelectMany(f => f.Observed).ToArray(),
             families.SelectMany(f => f.Mean).ToArray(), families.SelectMany(f => f.Sd).ToArray(), draws, twoSided);
         var maxima = new FamilyMaxima(statistic, families.Length, channels, draws,
             correction.Method == CorrectionMethod.NetworkBased ? correction.Threshold ?? CorrectionSpec.DefaultThreshold : null);
-        run(maxima);
+        if (kept is not null) kept.Replay(maxima);
+        else run(maxima);
         return (maxima, statistic);
     }
 
