@@ -71,15 +71,9 @@ public static class PairwiseKernels
     /// <exception cref="ArgumentException">The permutation or the output has the wrong length, or the permutation is not one.</exception>
     public static void Compute(PairwiseWorkspace workspace, ReadOnlySpan<int> permutation, Span<double> values)
     {
-        ArgumentNullException.ThrowIfNull(workspace);
+        Prepare(workspace, permutation, values);
         var set = workspace.Set;
         int trials = set.TrialCount;
-        if (values.Length != workspace.OutputLength)
-            throw new ArgumentException($"Expected {workspace.OutputLength} output values, got {values.Length}.", nameof(values));
-        CheckPermutation(permutation, trials, workspace.Seen);
-
-        values.Clear();
-        foreach (var dense in workspace.Dense) dense?.Clear();
         if (workspace.NeedsPhase || workspace.NeedsCross)
         {
             for (int t = 0; t < set.TimeCount; t++)
@@ -210,11 +204,7 @@ public static class PairwiseKernels
             ArgumentNullException.ThrowIfNull(w);
             if (!ReferenceEquals(w.Tables, first.Tables) || !w.Measures.SequenceEqual(first.Measures))
                 throw new ArgumentException("The workspaces must be siblings (one set, one measure list).", nameof(workspaces));
-            if (values[i].Length != w.OutputLength)
-                throw new ArgumentException($"Expected {w.OutputLength} output values, got {values[i].Length}.", nameof(values));
-            CheckPermutation(permutations[i], w.Set.TrialCount, w.Seen);
-            values[i].AsSpan().Clear();
-            foreach (var dense in w.Dense) dense?.Clear();
+            Prepare(w, permutations[i], values[i]);
         }
         var set = first.Set;
         if (first.NeedsPhase || first.NeedsCross)
@@ -255,6 +245,17 @@ public static class PairwiseKernels
         for (int k = 0; k < measures.Count; k++)
             result[k] = flat.AsSpan(k * workspace.PairCount, workspace.PairCount).ToArray();
         return result;
+    }
+
+    /// <summary>Checks one draw's permutation and output length, and clears its output and the workspace's sums.</summary>
+    private static void Prepare(PairwiseWorkspace workspace, ReadOnlySpan<int> permutation, Span<double> values)
+    {
+        ArgumentNullException.ThrowIfNull(workspace);
+        if (values.Length != workspace.OutputLength)
+            throw new ArgumentException($"Expected {workspace.OutputLength} output values, got {values.Length}.", nameof(values));
+        CheckPermutation(permutation, workspace.Set.TrialCount, workspace.Seen);
+        values.Clear();
+        foreach (var dense in workspace.Dense) dense?.Clear();
     }
 
     private static void CheckPermutation(ReadOnlySpan<int> permutation, int trials, bool[] seen)
