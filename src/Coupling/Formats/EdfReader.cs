@@ -82,8 +82,9 @@ public static class EdfReader
     }
 
     /// <summary>
-    /// Checks that <paramref name="header"/> describes a continuous file with data signals and chooses the signals to read
-    /// (see <see cref="Read"/>); signals left out for another sampling rate are noted in <paramref name="notes"/>.
+    /// Checks that <paramref name="header"/> describes a file with data signals (continuous, unless
+    /// <paramref name="allowDiscontinuous"/>) and chooses the signals to read (see <see cref="Read"/>); signals left out for
+    /// another sampling rate, and a BDF file's Status signal, are noted in <paramref name="notes"/>.
     /// </summary>
     /// <param name="header">The file's header.</param>
     /// <param name="selectedChannels">Labels to read, or null (see <see cref="Read"/>).</param>
@@ -97,7 +98,7 @@ public static class EdfReader
         if (header.IsDiscontinuous && !allowDiscontinuous)
             throw new InputException($"{path}: {header.FormatName} (discontinuous) files are read only through a plan (a run or check), which places each data record at its time stamp; this reader takes continuous files.");
         if (header.IsDiscontinuous && !header.Signals.Any(s => s.IsAnnotation))
-            throw new InputException($"{path}: a {header.FormatName} file needs an annotation signal ('EDF Annotations') whose time stamps place its data records; this one has none.");
+            throw new InputException($"{path}: a {header.FormatName} file needs an annotation signal ('{(header.IsBdf ? EdfSignalHeader.BdfAnnotationLabel : EdfSignalHeader.AnnotationLabel)}') whose time stamps place its data records; this one has none.");
         var selected = SelectSignals(header, selectedChannels, notes);
         if (header.RecordDuration <= 0)
             throw new InputException($"{path}: header field 'duration of a data record' at byte 244 is {Text(header.RecordDuration)}; a file with data signals needs a positive record duration.");

@@ -223,7 +223,7 @@ public sealed class EdfSegmentReader : ISampleSource
         if (length == 0 || _signals.Length == 0) return;
         var signals = Header.Signals;
         int perRecord = _perRecord;
-        int recordBytes = checked((int)Header.RecordBytes);
+        int recordBytes = checked((int)Header.RecordBytes), width = Header.BytesPerSample;
         int firstRecord = firstSample / perRecord;
         int lastRecord = (int)(((long)firstSample + length - 1) / perRecord);
         if (_recordStarts is { } starts)
@@ -262,7 +262,6 @@ public sealed class EdfSegmentReader : ISampleSource
                     for (int c = 0; c < _signals.Length; c++)
                     {
                         var s = signals[_signals[c]];
-                        int width = Header.BytesPerSample;
                         var bytes = record.Slice(_offsets[_signals[c]] + width * (int)(lo - recordStart), width * (hi - lo));
                         EdfReader.ScaleInto(bytes, width, s.DigitalMinimum, s.Resolution, s.PhysicalMinimum, target.Slice(c * length + lo - firstSample, hi - lo));
                     }
